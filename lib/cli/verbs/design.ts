@@ -1,6 +1,6 @@
-// Placeholder until the engine behind "design" lands; replaced by that engine's verb module.
-import { AppError } from "../../errors/app-error";
+/** The `design` verb (CONTRACT.md): a design input in, the runs of the design out. */
+import { generateDesign } from "../../doe";
 
-export function run(_input: unknown): unknown {
-  throw new AppError("internal", 'The "design" verb is not built yet.');
+export function run(input: unknown): unknown {
+  return generateDesign(input);
 }

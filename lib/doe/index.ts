@@ -1,0 +1,53 @@
+/**
+ * The design engine's public API (interfaces.md): design input schema, generation,
+ * factor coding, and the building blocks (fractions, CCD, Box–Behnken, D-optimal).
+ */
+export { designInputSchema, givenRunSchema, DESIGN_KINDS, type DesignInput, type DesignInputRaw, type DesignKind } from "./design-schema";
+export { generateDesign, type DesignOutput, type DesignRun, type PointType, type DOptimalSummary } from "./generate-design";
+export {
+  factorSchema,
+  factorListSchema,
+  codeValue,
+  decodeValue,
+  codePoint,
+  decodePoint,
+  factorLetter,
+  FACTOR_LETTERS,
+  FACTOR_NAME_PATTERN,
+  type Factor,
+  type FactorInput,
+} from "./factors";
+export { fullFactorialCoded, wordLength, interactionSign } from "./factorial";
+export {
+  parseGenerators,
+  defaultGenerators,
+  searchGenerators,
+  definingRelation,
+  resolutionOf,
+  wordLengthPattern,
+  aliasStructure,
+  fractionalFactorialCoded,
+  generatorsToText,
+  wordToLetters,
+  lettersToWord,
+  romanResolution,
+  TABLED_GENERATORS,
+  type Generator,
+  type SignedWord,
+  type FractionalFactorial,
+} from "./fractional";
+export { ccdAlpha, axialPointsCoded, type AlphaChoice } from "./central-composite";
+export { boxBehnkenCoded, boxBehnkenBlocks } from "./box-behnken";
+export { chooseBlockWords, blockOfRow } from "./blocking";
+export { seededRng, shuffle, assignRunOrder, type Rng } from "./randomize";
+export {
+  constraintSchema,
+  parseConstraint,
+  parseConstraints,
+  satisfiesConstraint,
+  satisfiesAll,
+  constraintInCoded,
+  type LinearConstraint,
+  type ConstraintInput,
+} from "./constraints";
+export { fedorovExchange, gridCandidates, candidateMatrix, informationMatrix, logDetSpd, inverseSpd, cholesky, type DOptimalOptions, type DOptimalResult } from "./d-optimal";
