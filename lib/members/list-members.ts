@@ -1,0 +1,11 @@
+import "server-only";
+import { Membership, User } from "@/models";
+import type { MembershipRow } from "@/lib/schemas/membership";
+
+/** Every member of one lab, by name. */
+export async function listMembers({ labId }: { labId: string }): Promise<MembershipRow[]> {
+  const rows = await Membership.findAll({ where: { labId }, include: [{ model: User, as: "user", required: true }] });
+  return rows
+    .map((m) => ({ id: m.id, userId: m.user!.id, email: m.user!.email, name: m.user!.name, role: m.role, joinedAt: m.createdAt.toISOString() }))
+    .sort((a, b) => a.name.localeCompare(b.name));
+}
