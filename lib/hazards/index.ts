@@ -4,3 +4,13 @@
  */
 export * from "./thresholds";
 export * from "./vessels";
+export * from "./solvent-record";
+export { BUILT_IN_SOLVENTS } from "./solvent-data";
+export * from "./solvents";
+export * from "./iapws-if97";
+export * from "./vapor-pressure";
+export * from "./solvent-system";
+export * from "./sealed-vessel";
+export * from "./caution-rules";
+export * from "./plan-cautions";
+export * from "./vessel-pressure";

@@ -1,6 +1,28 @@
-// Placeholder until the engine behind "vapor-pressure" lands; replaced by that engine's verb module.
-import { AppError } from "../../errors/app-error";
+/**
+ * `vapor-pressure` verb (../shared/CONTRACT.md): `{ "solvent": "tetrahydrofuran",
+ * "temperatureC": 120 }` (name, synonym or CAS number; optional `labSolvents`) →
+ * `{ bar, method, source, inRange, … }`.
+ */
+import { z } from "zod";
+import { parseOrThrow } from "../../errors/app-error";
+import { vaporPressure } from "../../hazards/vapor-pressure";
 
-export function run(_input: unknown): unknown {
-  throw new AppError("internal", 'The "vapor-pressure" verb is not built yet.');
+const inputSchema = z.object({
+  solvent: z.string().min(1).max(200),
+  temperatureC: z.number().gt(-273.15, "temperature must be above absolute zero (−273.15 °C)").max(3000),
+  labSolvents: z.array(z.unknown()).max(500).optional(),
+});
+
+export function run(input: unknown): unknown {
+  const v = parseOrThrow(inputSchema, input);
+  const r = vaporPressure(v.solvent, v.temperatureC, v.labSolvents);
+  return {
+    bar: r.bar,
+    method: r.method,
+    source: r.source,
+    inRange: r.inRange,
+    solvent: r.solvent,
+    tag: r.tag,
+    validRangeC: r.validRangeK ? [r.validRangeK[0] - 273.15, r.validRangeK[1] - 273.15] : null,
+  };
 }

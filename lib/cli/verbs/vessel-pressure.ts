@@ -1,6 +1,10 @@
-// Placeholder until the engine behind "vessel-pressure" lands; replaced by that engine's verb module.
-import { AppError } from "../../errors/app-error";
+/**
+ * `vessel-pressure` verb (../shared/CONTRACT.md): solvent system, temperatures and
+ * volumes of one sealed vessel in; `totalBar`, `vaporBar`, `airBar`, `gasBar`,
+ * `fillFractionHot` and `cautions` out (absolute pressures).
+ */
+import { vesselPressure } from "../../hazards/vessel-pressure";
 
-export function run(_input: unknown): unknown {
-  throw new AppError("internal", 'The "vessel-pressure" verb is not built yet.');
+export function run(input: unknown): unknown {
+  return vesselPressure(input);
 }

@@ -1,0 +1,475 @@
+/**
+ * The cautions of a whole plan: every rule of caution-rules.ts applied to every run,
+ * merged into one caution per rule and component listing the runs it touches, plus the
+ * sign-off decision and the per-run pressure estimates. Called by the chemistry
+ * engine's `plan` verb (../shared/CONTRACT.md) and by the app's safety review.
+ */
+import { z } from "zod";
+import { AppError, parseOrThrow } from "../errors/app-error";
+import {
+  CAUTION_RULES,
+  PLANNING_NOTICE,
+  SIGN_OFF_RULES,
+  compareCautions,
+  type Caution,
+  type CautionCode,
+  type Severity,
+} from "./caution-rules";
+import { fireFirings, fmt, pressureFirings, type Firing } from "./run-checks";
+import { estimateSealedVessel } from "./sealed-vessel";
+import { peroxideClassSchema, solventRecordSchema, type PeroxideClass, type SolventRecord } from "./solvent-record";
+import { FRACTION_SUM_TOLERANCE, resolveSolventSystem, solventShareSchema } from "./solvent-system";
+import { solventCatalogue, type SolventCatalogue } from "./solvents";
+import { equipmentSchema, labThresholdsSchema, type LabThresholds } from "./thresholds";
+import { ATM_BAR, type MixturePart } from "./vapor-pressure";
+import { vesselTypeSchema } from "./vessels";
+
+const isoDate = z
+  .string()
+  .refine((s) => /^\d{4}-\d{2}-\d{2}/.test(s) && !Number.isNaN(Date.parse(s)), "not an ISO date (YYYY-MM-DD)");
+
+export const planComponentSchema = z.object({
+  name: z.string().min(1).max(300),
+  /** GHS hazard statements, e.g. ["H225", "H250", "H261", "H314"]. */
+  ghs: z.array(z.string().max(20)).max(100).default([]),
+  pyrophoric: z.boolean().optional(),
+  waterReactive: z.boolean().optional(),
+  peroxideClass: peroxideClassSchema.nullable().optional(),
+  protic: z.boolean().optional(),
+  aqueous: z.boolean().optional(),
+  /** Volume of this component dispensed into this vial (µL). */
+  volumeUl: z.number().min(0).optional(),
+  /** Date the container was opened; null = unopened; absent = not recorded. */
+  openedOn: isoDate.nullable().optional(),
+  peroxideTestedOn: isoDate.nullable().optional(),
+});
+
+export const planRunSchema = z.object({
+  /** The run's standard order. */
+  run: z.number().int(),
+  temperatureC: z.number().gt(-273.15, "temperature must be above absolute zero (−273.15 °C)").max(3000),
+  timeH: z.number().min(0).optional(),
+  /** Final liquid volume in the vial (mL). */
+  liquidVolumeMl: z.number().positive(),
+  solvents: z.array(solventShareSchema).max(20),
+  gasReleasedMmol: z.number().min(0).optional(),
+  concentratesOrHeatsToDryness: z.boolean().optional(),
+  components: z.array(planComponentSchema).max(200).default([]),
+});
+
+export const planCautionInputSchema = z.object({
+  vessel: vesselTypeSchema,
+  thresholds: labThresholdsSchema,
+  equipment: equipmentSchema,
+  /** ISO date for container ages; default today. */
+  now: isoDate.optional(),
+  /** Conditions at sealing (default 25 °C, 1 atm). */
+  sealTemperatureC: z.number().gt(-273.15).max(500).default(25),
+  sealPressureBar: z.number().positive().max(1000).default(ATM_BAR),
+  /** The lab's own solvent records, on top of the built-in ones. */
+  labSolvents: z.array(solventRecordSchema).max(500).optional(),
+  runs: z.array(planRunSchema).max(100000),
+});
+
+export type PlanCautionInput = z.input<typeof planCautionInputSchema>;
+export type PlanComponent = z.output<typeof planComponentSchema>;
+export type { Caution } from "./caution-rules";
+
+export interface PlanCautionReport {
+  cautions: Caution[];
+  signOffRequired: boolean;
+  signOffReasons: string[];
+  releasable: boolean;
+  perRun: Array<{ run: number; totalBar: number | null; vaporBar: number | null; fillFractionHot: number | null }>;
+  notice: string;
+}
+
+const DAYS_PER_MONTH = 30.4375;
+const MS_PER_DAY = 86_400_000;
+
+interface Entry {
+  code: CautionCode;
+  severity: Severity;
+  component?: string;
+  runs: Set<number>;
+  worstScore: number;
+  worstRun: number;
+  message: string;
+}
+
+class CautionAccumulator {
+  private readonly entries = new Map<string, Entry>();
+
+  add(run: number, f: Firing): void {
+    const key = `${f.code}\u0000${f.component ?? ""}`;
+    const e = this.entries.get(key);
+    if (!e) {
+      this.entries.set(key, {
+        code: f.code,
+        severity: f.severity,
+        ...(f.component ? { component: f.component } : {}),
+        runs: new Set([run]),
+        worstScore: f.score,
+        worstRun: run,
+        message: f.message,
+      });
+      return;
+    }
+    e.runs.add(run);
+    if (f.score > e.worstScore) {
+      e.worstScore = f.score;
+      e.worstRun = run;
+      e.message = f.message;
+    }
+    if (f.severity === "blocking" || (f.severity === "warning" && e.severity === "info")) e.severity = f.severity;
+  }
+
+  cautions(): Caution[] {
+    return [...this.entries.values()]
+      .map((e): Caution => {
+        const runs = [...e.runs].sort((a, b) => a - b);
+        const where = runs.length > 1 ? ` Worst case: run ${e.worstRun} of ${runs.length} runs.` : "";
+        return {
+          code: e.code,
+          severity: e.severity,
+          runs,
+          ...(e.component ? { component: e.component } : {}),
+          message: e.message + where,
+          remedy: CAUTION_RULES[e.code].remedy,
+        };
+      })
+      .sort(compareCautions);
+  }
+}
+
+/** GHS statements (H250, H360FD, …) match by their three-digit stem. */
+function hasStatement(ghs: readonly string[], stems: readonly string[]): string[] {
+  return ghs.filter((g) => stems.some((s) => g.toUpperCase().startsWith(s)));
+}
+
+interface Material {
+  name: string;
+  key: string;
+  ghs: string[];
+  pyrophoric: boolean;
+  waterReactive: boolean;
+  /** "unclassified" when EUH019 is stated without a class. */
+  peroxideClass: PeroxideClass | "unclassified" | null;
+  protic: boolean;
+  aqueous: boolean;
+  volumeUl: number;
+  openedOn: string | null | undefined;
+  peroxideTestedOn: string | null | undefined;
+  path: string;
+}
+
+function materialFrom(c: PlanComponent, record: SolventRecord | undefined, path: string): Material {
+  const ghs = [...new Set([...c.ghs.map((g) => g.toUpperCase()), ...(record?.ghs.value ?? [])])];
+  const declared = c.peroxideClass ?? record?.peroxideClass?.value ?? null;
+  const peroxideClass = declared ?? (ghs.includes("EUH019") ? "unclassified" : null);
+  return {
+    name: c.name,
+    key: record ? `solvent:${record.id}` : `name:${c.name.trim().toLowerCase()}`,
+    ghs,
+    pyrophoric: c.pyrophoric === true || hasStatement(ghs, ["H250"]).length > 0,
+    waterReactive: c.waterReactive === true || hasStatement(ghs, ["H260", "H261"]).length > 0,
+    peroxideClass,
+    protic: c.protic ?? record?.protic ?? false,
+    aqueous: c.aqueous ?? record?.aqueous ?? false,
+    volumeUl: c.volumeUl ?? 0,
+    openedOn: c.openedOn,
+    peroxideTestedOn: c.peroxideTestedOn,
+    path,
+  };
+}
+
+function solventMaterial(r: SolventRecord): Material {
+  return {
+    name: r.name,
+    key: `solvent:${r.id}`,
+    ghs: r.ghs.value,
+    pyrophoric: false,
+    waterReactive: false,
+    peroxideClass: r.peroxideClass?.value ?? null,
+    protic: r.protic,
+    aqueous: r.aqueous,
+    volumeUl: 0,
+    openedOn: undefined,
+    peroxideTestedOn: undefined,
+    path: "",
+  };
+}
+
+/** Test interval (months) for a peroxide class; unclassified formers get the shortest one. */
+function intervalMonths(t: LabThresholds, cls: PeroxideClass | "unclassified"): number {
+  const i = t.peroxideTestIntervalMonths;
+  return cls === "unclassified" ? Math.min(i.A, i.B, i.C, i.D) : i[cls];
+}
+
+function ageMonths(nowMs: number, iso: string): number {
+  return (nowMs - Date.parse(iso)) / MS_PER_DAY / DAYS_PER_MONTH;
+}
+
+/**
+ * Evaluates every caution rule for every run of a plan (rules and codes in
+ * caution-rules.ts; pressure model of REFERENCE.md §2 in sealed-vessel.ts; peroxide
+ * intervals after Prudent Practices in the Laboratory, NRC 2011, as lab thresholds).
+ * One caution per rule and component, listing every run it touches; `releasable` is
+ * false whenever a caution is blocking; sign-off is required for a run at or above the
+ * lab's sign-off temperature (TL-S01), any pyrophoric reagent (TL-S02) and any sealed
+ * run above the solvent's boiling point (TL-S03).
+ * @throws AppError invalid_input with dotted paths (e.g. `runs.3.temperatureC`,
+ * `runs.0.solvents` for fractions not summing to 1) when the input does not validate.
+ */
+export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport {
+  const p = parseOrThrow(planCautionInputSchema, input, "The plan's hazard input is not valid.");
+  const catalogue = solventCatalogue(p.labSolvents);
+  const t = p.thresholds;
+  const nowMs = p.now ? Date.parse(p.now) : Date.now();
+  const acc = new CautionAccumulator();
+  const perRun: PlanCautionReport["perRun"] = [];
+  const findCache = new Map<string, SolventRecord | undefined>();
+  const find = (name: string): SolventRecord | undefined => {
+    if (!findCache.has(name)) findCache.set(name, catalogue.find(name));
+    return findCache.get(name);
+  };
+  const reactiveTotals = new Map<string, { name: string; ul: number; runs: Set<number> }>();
+  const pyrophoricNames = new Set<string>();
+  const aboveBoiling = new Set<number>();
+  let hottest = -Infinity;
+  const hotRuns: number[] = [];
+
+  p.runs.forEach((run, i) => {
+    const path = `runs.${i}`;
+    const T = run.temperatureC;
+    const add = (f: Firing) => acc.add(run.run, f);
+
+    // Equipment limits.
+    if (T > p.equipment.blockMaxC) {
+      add({ code: "TL-T01", severity: "warning", score: T, message: `${fmt(T, 1)} °C is above the heating block's maximum of ${fmt(p.equipment.blockMaxC, 1)} °C.` });
+    }
+    if (T < p.equipment.coolingMinC) {
+      add({ code: "TL-T02", severity: "warning", score: -T, message: `${fmt(T, 1)} °C is below the cooling method's minimum of ${fmt(p.equipment.coolingMinC, 1)} °C.` });
+    }
+    if (T >= t.signOffTemperatureC) {
+      hotRuns.push(run.run);
+      hottest = Math.max(hottest, T);
+    }
+
+    // Solvent system, pressure, fire data.
+    const parts = solventParts(catalogue, run.solvents, `${path}.solvents`, p.vessel.sealed, add);
+    let row: PlanCautionReport["perRun"][number] = { run: run.run, totalBar: null, vaporBar: null, fillFractionHot: null };
+    if (parts) {
+      try {
+        const est = estimateSealedVessel({
+          parts,
+          temperatureC: T,
+          sealTemperatureC: p.sealTemperatureC,
+          sealPressureBar: p.sealPressureBar,
+          vesselVolumeMl: p.vessel.totalVolumeMl,
+          liquidVolumeMl: run.liquidVolumeMl,
+          gasReleasedMmol: run.gasReleasedMmol ?? 0,
+        });
+        row = {
+          run: run.run,
+          totalBar: p.vessel.sealed ? est.totalBar : null,
+          vaporBar: est.vaporBar,
+          fillFractionHot: est.fillFractionHot,
+        };
+        const firings = pressureFirings(est, parts, T, {
+          sealed: p.vessel.sealed,
+          ratedBar: p.vessel.ratedBar,
+          safetyFactor: t.safetyFactor,
+          maxFillFraction: p.vessel.maxFillFraction,
+        });
+        for (const f of firings) {
+          add(f);
+          if (f.code === "TL-V01") aboveBoiling.add(run.run);
+        }
+      } catch (error) {
+        if (!(error instanceof AppError)) throw error;
+        add({
+          code: "TL-V05",
+          severity: p.vessel.sealed ? "blocking" : "warning",
+          score: T,
+          message: `The pressure at ${fmt(T, 1)} °C cannot be estimated: ${error.issues[0]?.message ?? error.message}.`,
+        });
+      }
+      for (const f of fireFirings(parts, T, t.autoignitionMarginC)) add(f);
+    }
+    perRun.push(row);
+
+    // Materials in the vial: the components, plus solvents not listed as components.
+    const materials: Material[] = run.components.map((c, j) => materialFrom(c, find(c.name), `${path}.components.${j}`));
+    for (const part of parts ?? []) {
+      if (part.volumeFraction > 0 && !materials.some((m) => m.key === `solvent:${part.record.id}`)) {
+        materials.push(solventMaterial(part.record));
+      }
+    }
+    const wetOnes = materials.filter((m) => m.protic || m.aqueous);
+
+    for (const m of materials) {
+      if (m.pyrophoric) {
+        pyrophoricNames.add(m.name);
+        add({ code: "TL-R01", severity: "warning", component: m.name, score: m.volumeUl, message: `${m.name} is pyrophoric (H250): it catches fire on contact with air.${m.waterReactive ? " It also reacts with water." : ""}` });
+      }
+      if (m.waterReactive) {
+        const codes = hasStatement(m.ghs, ["H260", "H261"]);
+        add({ code: "TL-R02", severity: "warning", component: m.name, score: m.volumeUl, message: `${m.name} reacts with water and releases flammable gas${codes.length ? ` (${codes.join(", ")})` : ""}.` });
+      }
+      if (m.pyrophoric || m.waterReactive) {
+        const tot = reactiveTotals.get(m.key) ?? { name: m.name, ul: 0, runs: new Set<number>() };
+        tot.ul += m.volumeUl;
+        tot.runs.add(run.run);
+        reactiveTotals.set(m.key, tot);
+        const wet = wetOnes.filter((w) => w.key !== m.key);
+        if (wet.length > 0) {
+          add({
+            code: "TL-R04",
+            severity: "blocking",
+            component: m.name,
+            score: wet.length,
+            message: `${m.name} is ${m.pyrophoric ? "pyrophoric" : "water-reactive"} and shares the vial with ${wet.map((w) => `${w.name} (${w.aqueous ? "aqueous" : "protic"})`).join(", ")}.`,
+          });
+        }
+      }
+      if (m.peroxideClass) peroxideChecks(m, m.peroxideClass, run.concentratesOrHeatsToDryness === true, t, nowMs, add);
+      const cmr = hasStatement(m.ghs, ["H340", "H350", "H360"]);
+      if (cmr.length > 0) {
+        const kinds = [
+          cmr.some((g) => g.startsWith("H340")) ? "mutagenic" : "",
+          cmr.some((g) => g.startsWith("H350")) ? "carcinogenic" : "",
+          cmr.some((g) => g.startsWith("H360")) ? "toxic to reproduction" : "",
+        ].filter(Boolean);
+        add({ code: "TL-H01", severity: "warning", component: m.name, score: 0, message: `${m.name} is ${kinds.join(", ")} (${cmr.join(", ")}).` });
+      }
+    }
+  });
+
+  // Second-person rule over the whole plan.
+  for (const tot of reactiveTotals.values()) {
+    const ml = tot.ul / 1000;
+    if (ml > t.pyrophoricSecondPersonVolumeMl) {
+      for (const r of tot.runs) {
+        acc.add(r, {
+          code: "TL-R03",
+          severity: "warning",
+          component: tot.name,
+          score: ml,
+          message: `${fmt(ml, 2)} mL of ${tot.name} is handled in this plan, above the lab's second-person threshold of ${fmt(t.pyrophoricSecondPersonVolumeMl, 2)} mL.`,
+        });
+      }
+    }
+  }
+
+  // The vessel's own rating.
+  if (p.vessel.sealed && p.vessel.confirmWithSupplier && p.runs.length > 0) {
+    for (const r of p.runs) {
+      acc.add(r.run, {
+        code: "TL-V06",
+        severity: "info",
+        component: p.vessel.name,
+        score: 0,
+        message: `The rating of ${p.vessel.name} (${fmt(p.vessel.ratedBar)} bar absolute, maximum fill ${fmt(p.vessel.maxFillFraction * 100, 1)} %) is a default that has not been confirmed with the supplier.`,
+      });
+    }
+  }
+
+  const cautions = acc.cautions();
+  const signOffReasons: string[] = [];
+  if (hotRuns.length > 0) {
+    signOffReasons.push(
+      `TL-S01: ${hotRuns.length} run(s) at or above the lab's sign-off temperature of ${fmt(t.signOffTemperatureC, 1)} °C (highest ${fmt(hottest, 1)} °C).`,
+    );
+  }
+  if (pyrophoricNames.size > 0) {
+    signOffReasons.push(`TL-S02: ${SIGN_OFF_RULES["TL-S02"]}: ${[...pyrophoricNames].join(", ")}.`);
+  }
+  if (aboveBoiling.size > 0) {
+    signOffReasons.push(`TL-S03: ${SIGN_OFF_RULES["TL-S03"]} (${aboveBoiling.size} run(s)).`);
+  }
+  return {
+    cautions,
+    signOffRequired: signOffReasons.length > 0,
+    signOffReasons,
+    releasable: !cautions.some((c) => c.severity === "blocking"),
+    perRun,
+    notice: PLANNING_NOTICE,
+  };
+}
+
+/**
+ * Resolves a run's solvents; unknown names give a TL-V05 caution (not an error: a lab
+ * may not have entered its solvent yet). Fractions not summing to 1 are an input error.
+ */
+function solventParts(
+  catalogue: SolventCatalogue,
+  shares: ReadonlyArray<z.output<typeof solventShareSchema>>,
+  path: string,
+  sealed: boolean,
+  add: (f: Firing) => void,
+): MixturePart[] | null {
+  if (shares.length === 0) {
+    add({ code: "TL-V05", severity: sealed ? "blocking" : "warning", score: 0, message: "No solvent is given for the vial, so its pressure and fire data cannot be checked." });
+    return null;
+  }
+  const sum = shares.reduce((s, x) => s + x.volumeFraction, 0);
+  if (Math.abs(sum - 1) > FRACTION_SUM_TOLERANCE) {
+    throw AppError.field(path, `volume fractions must sum to 1 (they sum to ${sum})`);
+  }
+  const unknown = shares.filter((s) => !catalogue.find(s.name)).map((s) => s.name);
+  if (unknown.length > 0) {
+    add({
+      code: "TL-V05",
+      severity: sealed ? "blocking" : "warning",
+      component: unknown.join(", "),
+      score: 0,
+      message: `No solvent record for ${unknown.map((u) => `"${u}"`).join(", ")}: the vial's pressure and fire data cannot be checked.`,
+    });
+    return null;
+  }
+  return resolveSolventSystem(catalogue, shares, path);
+}
+
+function peroxideChecks(
+  m: Material,
+  cls: PeroxideClass | "unclassified",
+  concentrates: boolean,
+  t: LabThresholds,
+  nowMs: number,
+  add: (f: Firing) => void,
+): void {
+  const months = intervalMonths(t, cls);
+  const label = cls === "unclassified" ? "unclassified peroxide former (EUH019)" : `peroxide former, class ${cls}`;
+  const testAge = m.peroxideTestedOn ? ageMonths(nowMs, m.peroxideTestedOn) : null;
+  const testCurrent = testAge !== null && testAge <= months;
+  if (typeof m.openedOn === "string") {
+    const opened = ageMonths(nowMs, m.openedOn);
+    if (opened > months && !testCurrent) {
+      add({
+        code: "TL-X01",
+        severity: "warning",
+        component: m.name,
+        score: opened,
+        message: `${m.name} (${label}) was opened on ${m.openedOn.slice(0, 10)}, ${fmt(opened, 1)} months ago, beyond the lab's ${fmt(months, 1)}-month limit, ${m.peroxideTestedOn ? `and its last peroxide test (${m.peroxideTestedOn.slice(0, 10)}) is older than that` : "with no peroxide test on record"}.`,
+      });
+    }
+  } else if (m.openedOn === undefined) {
+    add({
+      code: "TL-X03",
+      severity: "info",
+      component: m.name,
+      score: 0,
+      message: `${m.name} is a ${label}; the opening date of its container is not recorded.`,
+    });
+  }
+  if (concentrates) {
+    add({
+      code: "TL-X02",
+      severity: "warning",
+      component: m.name,
+      score: 1,
+      message: `${m.name} (${label}) is concentrated or heated to dryness in this run${testCurrent ? "" : ", and there is no peroxide test on record within the lab's interval"}.`,
+    });
+  }
+}
