@@ -1,6 +1,10 @@
-// Placeholder until the engine behind "molar-mass" lands; replaced by that engine's verb module.
-import { AppError } from "../../errors/app-error";
+/**
+ * `cli molar-mass`: `{ "formula": "C9H11Br" }` → `{ formula, gPerMol, monoisotopic, … }`
+ * (../shared/CONTRACT.md). SMILES input is refused with an invalid-input error.
+ */
+import { molarMass } from "../../chemistry/molar-mass";
 
-export function run(_input: unknown): unknown {
-  throw new AppError("internal", 'The "molar-mass" verb is not built yet.');
+export function run(input: unknown): unknown {
+  if (typeof input === "string") return molarMass({ formula: input });
+  return molarMass(input);
 }

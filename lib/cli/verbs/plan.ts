@@ -1,6 +1,9 @@
-// Placeholder until the engine behind "plan" lands; replaced by that engine's verb module.
-import { AppError } from "../../errors/app-error";
+/**
+ * `cli plan`: a plan document (lib/chemistry/plan-document.ts) → its run sheet with the
+ * stocks to prepare, the per-vial dispense list and the cautions of every run.
+ */
+import { planReport } from "../../chemistry/plan-report";
 
-export function run(_input: unknown): unknown {
-  throw new AppError("internal", 'The "plan" verb is not built yet.');
+export function run(input: unknown): unknown {
+  return planReport(input);
 }

@@ -1,0 +1,106 @@
+/**
+ * The hazard engine's input for a plan (interfaces.md `PlanCautionInput`), built from a
+ * plan document and its run sheet: per run the temperature, time, final volume, the
+ * solvent system, the gas the recipe declares, and every component with its hazard
+ * flags and the volume dispensed into that vial.
+ */
+import type { LabThresholds } from "../hazards/thresholds";
+import type { VesselType } from "../hazards/vessels";
+import type { PlanDocument } from "./plan-document";
+import type { RunSheet } from "./run-sheet";
+import { solventFlags } from "./stoichiometry";
+
+export interface CautionComponent {
+  name: string;
+  ghs: string[];
+  pyrophoric?: boolean;
+  waterReactive?: boolean;
+  peroxideClass?: "A" | "B" | "C" | "D" | null;
+  protic?: boolean;
+  aqueous?: boolean;
+  volumeUl?: number;
+  openedOn?: string | null;
+  peroxideTestedOn?: string | null;
+}
+
+export interface CautionRun {
+  run: number;
+  temperatureC: number;
+  timeH?: number;
+  liquidVolumeMl: number;
+  solvents: Array<{ name: string; volumeFraction: number }>;
+  gasReleasedMmol?: number;
+  concentratesOrHeatsToDryness?: boolean;
+  components: CautionComponent[];
+}
+
+export interface CautionInput {
+  vessel: VesselType;
+  thresholds: LabThresholds;
+  equipment: { blockMaxC: number; coolingMinC: number };
+  now?: string;
+  runs: CautionRun[];
+}
+
+/**
+ * Builds the caution input. A component's `volumeUl` is the volume of the dispense
+ * that carries it (the stock, master mix or the liquid itself); solids have none.
+ * GHS codes imply the flags: H250 pyrophoric; H260, H261, EUH014 water-reactive.
+ * Solvents of the system are listed as components too, with their own flags, so the
+ * incompatibility rules see water in the vial.
+ */
+export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionInput {
+  const comps = doc.recipe.components;
+  return {
+    vessel: sheet.vessel,
+    thresholds: doc.thresholds,
+    equipment: { blockMaxC: doc.equipment.blockMaxC, coolingMinC: doc.equipment.coolingMinC },
+    ...(doc.now !== undefined ? { now: doc.now } : {}),
+    runs: sheet.runs.map((r) => {
+      const components: CautionComponent[] = comps.map((c) => {
+        const ghs = new Set(c.hazards.ghs);
+        const row = r.components.find((x) => x.id === c.id)!;
+        const carrier = r.dispense.find((d) => d.source === row.source);
+        const out: CautionComponent = {
+          name: c.name,
+          ghs: [...ghs],
+          pyrophoric: c.hazards.pyrophoric ?? ghs.has("H250"),
+          waterReactive: c.hazards.waterReactive ?? (ghs.has("H260") || ghs.has("H261") || ghs.has("EUH014")),
+          peroxideClass: c.hazards.peroxideClass ?? (ghs.has("EUH019") ? "B" : null),
+          protic: c.hazards.protic ?? false,
+          aqueous: c.hazards.aqueous ?? false,
+          openedOn: c.hazards.openedOn ?? null,
+          peroxideTestedOn: c.hazards.peroxideTestedOn ?? null,
+        };
+        if (carrier && carrier.volumeUl !== null && carrier.kind !== "solid") out.volumeUl = carrier.volumeUl;
+        return out;
+      });
+      for (const s of doc.recipe.solvents) {
+        const sv = r.solvents.find((x) => x.name === s.name);
+        if (!sv || sv.volumeFraction <= 0) continue;
+        const flags = solventFlags(s);
+        components.push({
+          name: s.name,
+          ghs: s.ghs,
+          protic: flags.protic,
+          aqueous: flags.aqueous,
+          peroxideClass: s.peroxideClass ?? null,
+          openedOn: s.openedOn ?? null,
+          peroxideTestedOn: s.peroxideTestedOn ?? null,
+          volumeUl: sv.volumeUl,
+        });
+      }
+      const run: CautionRun = {
+        run: r.run,
+        temperatureC: r.temperatureC,
+        liquidVolumeMl: r.finalVolumeUl / 1000,
+        solvents: r.solvents.filter((s) => s.volumeFraction > 0).map((s) => ({ name: s.name, volumeFraction: s.volumeFraction })),
+        gasReleasedMmol: r.totals.gasReleasedMmol,
+        concentratesOrHeatsToDryness: doc.recipe.concentratesOrHeatsToDryness,
+        components,
+      };
+      if (r.timeH !== null) run.timeH = r.timeH;
+      return run;
+    }),
+  };
+}
