@@ -1,6 +1,6 @@
-// Placeholder until the engine behind "fit" lands; replaced by that engine's verb module.
-import { AppError } from "../../errors/app-error";
+/** The `fit` verb (CONTRACT.md): runs and a model in, estimates, ANOVA and diagnostics out. */
+import { fitModel } from "../../stats";
 
-export function run(_input: unknown): unknown {
-  throw new AppError("internal", 'The "fit" verb is not built yet.');
+export function run(input: unknown): unknown {
+  return fitModel(input);
 }

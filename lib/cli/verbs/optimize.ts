@@ -1,6 +1,6 @@
-// Placeholder until the engine behind "optimize" lands; replaced by that engine's verb module.
-import { AppError } from "../../errors/app-error";
+/** The `optimize` verb (CONTRACT.md): the fit input plus a goal and region in, the best conditions out. */
+import { optimizeResponse } from "../../surface";
 
-export function run(_input: unknown): unknown {
-  throw new AppError("internal", 'The "optimize" verb is not built yet.');
+export function run(input: unknown): unknown {
+  return optimizeResponse(input);
 }

@@ -1,0 +1,60 @@
+/**
+ * The `fit` input of CONTRACT.md as a zod schema. Added fields (optional):
+ * `responseName` picks one response from runs that carry several in `responses`.
+ */
+import { z } from "zod";
+import { factorListSchema } from "../doe/factors";
+import { modelSpecSchema } from "./model-terms";
+
+const pointSchema = z.record(z.string(), z.number().finite());
+
+/** One observed run: coded or natural factor values and the response (or several). */
+export const observedRunSchema = z.object({
+  natural: pointSchema.optional(),
+  coded: pointSchema.optional(),
+  response: z.number().finite().optional(),
+  responses: z.record(z.string(), z.number().finite()).optional(),
+});
+
+export const pruneSchema = z.object({
+  alpha: z.number().gt(0).lt(1).default(0.05),
+  hierarchy: z.boolean().default(true),
+});
+
+/** The fields shared by `fit` and `optimize`. */
+export const fitFields = {
+  factors: factorListSchema,
+  runs: z.array(observedRunSchema).min(1, "at least one run is needed"),
+  model: modelSpecSchema.default("quadratic"),
+  transform: z.enum(["none", "ln"]).default("none"),
+  prune: pruneSchema.optional(),
+  responseName: z.string().min(1).optional(),
+};
+
+type FitShape = { factors: { name: string }[]; runs: z.output<typeof observedRunSchema>[]; transform: "none" | "ln"; responseName?: string };
+
+/** Checks the runs against the factors: values present, known names, responses present and (for ln) positive. */
+export function checkRuns(d: FitShape, ctx: z.RefinementCtx, responseNames: (string | undefined)[] = [d.responseName]): void {
+  const names = d.factors.map((f) => f.name);
+  d.runs.forEach((r, i) => {
+    const pt = r.coded ?? r.natural;
+    const key = r.coded ? "coded" : "natural";
+    if (!pt) {
+      ctx.addIssue({ code: "custom", path: ["runs", i], message: "give coded or natural values" });
+      return;
+    }
+    for (const k of Object.keys(pt)) if (!names.includes(k)) ctx.addIssue({ code: "custom", path: ["runs", i, key, k], message: "is not one of the factors" });
+    for (const n of names) if (pt[n] === undefined) ctx.addIssue({ code: "custom", path: ["runs", i, key, n], message: "is missing" });
+    for (const rn of responseNames) {
+      const y = rn === undefined ? r.response : (r.responses?.[rn] ?? (rn === d.responseName ? r.response : undefined));
+      const path = rn === undefined ? ["runs", i, "response"] : r.responses ? ["runs", i, "responses", rn] : ["runs", i, "response"];
+      if (y === undefined) ctx.addIssue({ code: "custom", path, message: "is missing" });
+      else if (d.transform === "ln" && !(y > 0)) ctx.addIssue({ code: "custom", path, message: "must be positive for the ln transform" });
+    }
+  });
+}
+
+export const fitInputSchema = z.object(fitFields).superRefine((d, ctx) => checkRuns(d, ctx));
+
+export type FitInput = z.output<typeof fitInputSchema>;
+export type FitInputRaw = z.input<typeof fitInputSchema>;

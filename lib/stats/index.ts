@@ -1,0 +1,21 @@
+/** The statistics engine's public API: model terms, least squares, fitting, distributions. */
+export { buildTerms, parseTerm, termName, termValue, modelRow, termContains, isSquareTerm, termDegree, modelSpecSchema, type Term, type ModelSpec } from "./model-terms";
+export { leastSquaresQR, findAliasedColumns, reduceProblem, fitReducedSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ReducedProblem } from "./least-squares";
+export { tQuantile, tTwoSidedP, fQuantile, fUpperP } from "./distributions";
+export { fitInputSchema, observedRunSchema, pruneSchema, type FitInput, type FitInputRaw } from "./fit-schema";
+export {
+  fitModel,
+  fitParsed,
+  backwardEliminate,
+  pureError,
+  curvatureTest,
+  codedRunsOf,
+  type FitOutput,
+  type FittedModel,
+  type TermEstimate,
+  type AnovaRow,
+  type FitStats,
+  type Diagnostic,
+  type CanonicalOutput,
+  type CurvatureTest,
+} from "./fit";

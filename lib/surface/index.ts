@@ -1,0 +1,18 @@
+/** The surface engine's public API: prediction, canonical analysis, optimisation, desirability. */
+export { predictAt, predictModelScale, type Prediction } from "./predict";
+export { canonicalAnalysis, quadraticParts, RIDGE_TOLERANCE, type CanonicalCoded, type SurfaceKind } from "./canonical";
+export { desirability, overallDesirability, desirabilitySpecSchema, type DesirabilitySpec } from "./desirability";
+export {
+  maximizeQuadraticInCube,
+  maximizeQuadraticInBall,
+  multiStartMaximize,
+  projectedGradientAscent,
+  projectOntoRegion,
+  compassSearch,
+  inRegion,
+  evalQuadratic,
+  type Quadratic,
+  type Region,
+  type Objective,
+} from "./solvers";
+export { optimizeResponse, optimizeInputSchema, type OptimizeInput, type OptimizeOutput, type ResponseAtOptimum } from "./optimize";
