@@ -13,7 +13,12 @@ export default tseslint.config(
       "@typescript-eslint/no-explicit-any": "error",
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
       "@typescript-eslint/ban-ts-comment": "error",
+      "no-restricted-imports": ["error", { paths: [{ name: "@/models", message: "Import models from @/lib/server/models (it initialises them on the connection pool)." }] }],
     },
+  },
+  {
+    files: ["lib/server/db.ts", "lib/server/models.ts", "models/**"],
+    rules: { "no-restricted-imports": "off" },
   },
   {
     files: ["**/*.mjs", "**/*.cjs"],

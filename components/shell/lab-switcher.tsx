@@ -13,7 +13,11 @@ export function LabSwitcher({ current, labs }: { current: string; labs: Array<{ 
         data-testid="lab-switcher"
         className="rounded-md border border-ink-line bg-paper-card px-2 py-1 text-sm font-medium"
         value={current}
-        onChange={(e) => router.push(`/labs/${e.target.value}`)}
+        onChange={(e) => {
+          // Remembered for the next visit to the home page.
+          document.cookie = `tareline-lab=${encodeURIComponent(e.target.value)}; path=/; max-age=31536000; samesite=lax`;
+          router.push(`/labs/${e.target.value}`);
+        }}
       >
         {labs.map((l) => (
           <option key={l.slug} value={l.slug}>

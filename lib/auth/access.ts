@@ -1,6 +1,6 @@
 import "server-only";
 import { AppError } from "@/lib/errors/app-error";
-import { Lab, Membership } from "@/models";
+import { Lab, Membership } from "@/lib/server/models";
 import { can, type Permission } from "./permissions";
 import type { Role } from "./roles";
 import { requireUser, type SessionUser } from "./session";

@@ -2,7 +2,7 @@ import "server-only";
 import bcrypt from "bcryptjs";
 import { Op } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { SignInAttempt, User } from "@/models";
+import { SignInAttempt, User } from "@/lib/server/models";
 import { signInSchema } from "@/lib/schemas/account";
 
 /** The lockout rule: this many failures in a row within the window refuse further attempts. */

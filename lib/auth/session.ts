@@ -1,7 +1,7 @@
 import "server-only";
 import { getServerSession } from "next-auth";
 import { AppError } from "@/lib/errors/app-error";
-import { User } from "@/models";
+import { User } from "@/lib/server/models";
 import { authOptions } from "./options";
 
 export interface SessionUser {

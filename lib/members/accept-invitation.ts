@@ -5,7 +5,7 @@ import { acceptInvitationSchema } from "@/lib/schemas/account";
 import { hashPassword } from "@/lib/auth/authenticate";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
-import { Invitation, Lab, Membership, User } from "@/models";
+import { Invitation, Lab, Membership, User } from "@/lib/server/models";
 import { hashToken } from "./invite-member";
 
 async function openInvitation(token: string, t?: import("sequelize").Transaction) {

@@ -3,7 +3,7 @@ import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { changeRoleSchema } from "@/lib/schemas/membership";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
-import { Membership } from "@/models";
+import { Membership } from "@/lib/server/models";
 
 /**
  * Changes one member's role in a lab, audited with before and after. The lab always

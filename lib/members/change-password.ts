@@ -3,7 +3,7 @@ import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { changePasswordSchema } from "@/lib/schemas/account";
 import { hashPassword, verifyPassword } from "@/lib/auth/authenticate";
 import { audit } from "@/lib/server/audit";
-import { User } from "@/models";
+import { User } from "@/lib/server/models";
 
 /** Changes the signed-in user's password after checking the current one; audited (no hashes logged). */
 export async function changePassword(opts: { userId: string; input: unknown }) {

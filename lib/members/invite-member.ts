@@ -6,7 +6,7 @@ import { ROLE_LABELS } from "@/lib/auth/roles";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { sendMail } from "@/lib/server/mail";
-import { Invitation, Lab, Membership, User } from "@/models";
+import { Invitation, Lab, Membership, User } from "@/lib/server/models";
 
 export const INVITATION_DAYS = 7;
 

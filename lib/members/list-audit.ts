@@ -1,5 +1,5 @@
 import "server-only";
-import { AuditEntry, User } from "@/models";
+import { AuditEntry, User } from "@/lib/server/models";
 
 export interface AuditRow {
   id: string;

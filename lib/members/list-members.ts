@@ -1,5 +1,5 @@
 import "server-only";
-import { Membership, User } from "@/models";
+import { Membership, User } from "@/lib/server/models";
 import type { MembershipRow } from "@/lib/schemas/membership";
 
 /** Every member of one lab, by name. */

@@ -2,7 +2,7 @@ import "server-only";
 import { AppError } from "@/lib/errors/app-error";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
-import { Membership } from "@/models";
+import { Membership } from "@/lib/server/models";
 import { assertAnotherAdmin } from "./change-member-role";
 
 /** Removes a member from a lab (their account stays), audited. Never the last lab admin. */

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { AuditEntry } from "@/models";
+import { AuditEntry } from "@/lib/server/models";
 
 export interface AuditInput {
   labId: string | null;

@@ -4,19 +4,27 @@ import { Sequelize, type Transaction } from "sequelize";
 import { initModels } from "@/models";
 import { serverEnv } from "./env";
 
-/** The one database connection pool of the process, with every model initialised on it. */
+/**
+ * The one database connection pool of the process, with every model initialised on it.
+ * The pool lives on globalThis (one per process, surviving hot reloads); the model classes
+ * are initialised once per copy of this module, because the production build may bundle
+ * the models into more than one chunk.
+ */
 const globalForDb = globalThis as unknown as { tarelineSequelize?: Sequelize };
+let modelsReady = false;
 
 export function db(): Sequelize {
   if (!globalForDb.tarelineSequelize) {
-    const sequelize = new Sequelize(serverEnv().DATABASE_URL, {
+    globalForDb.tarelineSequelize = new Sequelize(serverEnv().DATABASE_URL, {
       dialect: "postgres",
       dialectModule: pg,
       logging: false,
       pool: { max: 10, min: 0, idle: 10_000 },
     });
-    initModels(sequelize);
-    globalForDb.tarelineSequelize = sequelize;
+  }
+  if (!modelsReady) {
+    initModels(globalForDb.tarelineSequelize);
+    modelsReady = true;
   }
   return globalForDb.tarelineSequelize;
 }

@@ -1,0 +1,49 @@
+import { describe, expect, it } from "vitest";
+import { PERMISSIONS, can, type Permission } from "@/lib/auth/permissions";
+import { ROLES, type Role } from "@/lib/auth/roles";
+import { navFor } from "@/lib/navigation";
+
+/**
+ * The expected table, written out by hand from the roles in ../shared/PRODUCT.md
+ * ("People and roles"): a viewer reads everything and changes nothing; a lab admin
+ * manages members; a stockkeeper manages the catalogue and containers; a safety officer
+ * and an auditor-viewer read the audit log. If a permission is added to lib/auth/permissions.ts
+ * without a row here, the "covers every permission" test fails.
+ */
+const EXPECTED: Record<Permission, Role[]> = {
+  "lab.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "members.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "members.manage": ["lab_admin"],
+  "audit.read": ["safety_officer", "lab_admin", "viewer"],
+  "chemicals.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "chemicals.manage": ["stockkeeper", "lab_admin"],
+  "stock.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "stock.manage": ["stockkeeper", "lab_admin"],
+};
+
+describe("permission table", () => {
+  it("covers every permission that exists", () => {
+    expect(Object.keys(EXPECTED).sort()).toEqual([...PERMISSIONS].sort());
+  });
+
+  for (const permission of PERMISSIONS) {
+    for (const role of ROLES) {
+      const expected = EXPECTED[permission].includes(role);
+      it(`${role} ${expected ? "holds" : "does not hold"} ${permission}`, () => {
+        expect(can(role, permission)).toBe(expected);
+      });
+    }
+  }
+
+  it("a viewer changes nothing: holds no *.manage permission", () => {
+    expect(PERMISSIONS.filter((p) => p.endsWith(".manage") && can("viewer", p))).toEqual([]);
+  });
+
+  it("navigation shows only sections the role may open", () => {
+    for (const role of ROLES) {
+      for (const item of navFor(role)) expect(can(role, item.permission)).toBe(true);
+    }
+    expect(navFor("chemist").map((n) => n.label)).not.toContain("Members");
+    expect(navFor("lab_admin").map((n) => n.label)).toContain("Members");
+  });
+});
