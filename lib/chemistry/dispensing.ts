@@ -227,7 +227,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
     // Components that may share a solution, keyed by stock solvent and by the profile of
     // their amounts over the runs (constant, or proportional to each other, such as a
     // catalyst and its ligand at a fixed ratio).
-    const shared = new Map<string, number[]>();
+    const shared: Array<{ solvent: string; profile: number[]; members: number[] }> = [];
     for (const info of infos) {
       if (mode[info.index] !== "stock" && mode[info.index] !== "master-mix") continue;
       const c = info.component;
@@ -237,18 +237,18 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
         continue;
       }
       const n = mmolOf(info.index);
-      const profile = n.map((v) => (v / n[0]!).toPrecision(9)).join(",");
-      const key = `${info.stockSolvent}\u0000${profile}`;
-      const list = shared.get(key) ?? [];
-      list.push(info.index);
-      shared.set(key, list);
+      const profile = n.map((v) => v / n[0]!);
+      const same = shared.find(
+        (s) => s.solvent === info.stockSolvent && s.profile.every((v, ri) => Math.abs(v - profile[ri]!) <= REL * Math.max(Math.abs(v), 1e-300)),
+      );
+      if (same) same.members.push(info.index);
+      else shared.push({ solvent: info.stockSolvent, profile, members: [info.index] });
     }
-    for (const [key, members] of shared) {
+    for (const { solvent, members } of shared) {
       if (members.length === 1) {
         groups.push(singleGroup(infos[members[0]!]!));
         continue;
       }
-      const solvent = key.split("\u0000")[0]!;
       const lead = mmolOf(members[0]!);
       const basis = lead.map((v) => v / lead[0]!);
       const constant = isConstant(lead);
@@ -286,19 +286,26 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
     }
     if (over.length === 0) break;
     // Take the auto-mode solid that uses most volume in the crowded runs out of solution.
-    const crowded = new Set(over.map((o) => `${o.solvent}|${o.ri}`));
+    const crowded = new Map<string, boolean[]>();
+    for (const o of over) {
+      const flags = crowded.get(o.solvent) ?? new Array<boolean>(nRuns).fill(false);
+      flags[o.ri] = true;
+      crowded.set(o.solvent, flags);
+    }
     let best: { index: number; volume: number } | null = null;
     for (const g of groups) {
       for (const m of g.members) {
         const info = infos[m]!;
         if (info.component.dispense !== "auto" || info.component.form.state !== "solid") continue;
+        const flags = crowded.get(g.solvent);
+        if (!flags) continue;
+        const limit = Math.min(info.solubilityM, info.intrinsicMaxM);
         let volume = 0;
         for (let ri = 0; ri < nRuns; ri++) {
-          if (!crowded.has(`${g.solvent}|${ri}`)) continue;
-          const limit = Math.min(info.solubilityM, info.intrinsicMaxM);
+          if (!flags[ri]) continue;
           volume += g.members.length === 1 ? g.basis[ri]! / g.kMax : Number.isFinite(limit) ? (1000 * runs[ri]!.amounts[m]!.mmol) / limit : 0;
         }
-        if (!best || volume > best.volume) best = { index: m, volume };
+        if (volume > 0 && (!best || volume > best.volume)) best = { index: m, volume };
       }
     }
     if (!best) {
@@ -321,7 +328,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
     }
     const info = infos[best.index]!;
     mode[best.index] = "solid";
-    const crowdedRuns = [...new Set(over.map((o) => runs[o.ri]!.run))].sort((a, b) => a - b);
+    const crowdedRuns = [...new Set(over.filter((o) => o.solvent === info.stockSolvent).map((o) => runs[o.ri]!.run))].sort((a, b) => a - b);
     const sol = info.component.solubilityMgPerMl;
     notes.add({
       code: "solid_per_vial_solubility",
@@ -386,30 +393,35 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
   const dispenses: Dispense[][] = [];
   const solventVolumesUl: Array<Record<string, number>> = [];
   const topUpsUl: Array<Record<string, number>> = [];
-  const groupVolume = (g: Group, ri: number) => g.basis[ri]! / g.k;
+  // Per group, computed once: rank in the order of addition, name, member concentrations.
+  const groupFacts = groups.map((g) => ({
+    rank: Math.min(...g.members.map((m) => infos[m]!.component.addOrder ?? defaultRank(infos[m]!, g.kind))),
+    order: g.members[0]!,
+    name: groupName(g, infos),
+    members: g.members.map((m) => ({ id: infos[m]!.component.id, c: concentrationOf(g, m, runs) })),
+  }));
   for (let ri = 0; ri < nRuns; ri++) {
     const r = runs[ri]!;
     const items: Array<{ rank: number; order: number; d: Omit<Dispense, "step"> }> = [];
     const fromStocks: Record<string, number> = {};
-    for (const g of groups) {
-      const v = groupVolume(g, ri);
+    groups.forEach((g, gi) => {
+      const v = g.basis[ri]! / g.k;
+      const facts = groupFacts[gi]!;
       fromStocks[g.solvent] = (fromStocks[g.solvent] ?? 0) + v;
-      const firstInfo = infos[g.members[0]!]!;
-      const rank = Math.min(...g.members.map((m) => infos[m]!.component.addOrder ?? defaultRank(infos[m]!, g.kind)));
       items.push({
-        rank,
-        order: firstInfo.index,
+        rank: facts.rank,
+        order: facts.order,
         d: {
           kind: g.kind,
           source: g.key,
-          name: groupName(g, infos),
+          name: facts.name,
           volumeUl: v,
           massMg: null,
-          delivers: g.members.map((m) => ({ id: infos[m]!.component.id, mmol: (v * concentrationOf(g, m, runs) ) / 1000 })),
+          delivers: facts.members.map((m) => ({ id: m.id, mmol: (v * m.c) / 1000 })),
           solvent: { name: g.solvent, volumeUl: v },
         },
       });
-    }
+    });
     for (const info of infos) {
       const m = mode[info.index]!;
       const a = r.amounts[info.index]!;

@@ -208,6 +208,24 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
 function inventory(doc: PlanDocument, infos: ComponentInfo[], runs: RunSheetRun[], stocks: Stock[]): InventoryLine[] {
   const d = doc.dispensing;
   const over = 1 + d.overagePercent / 100;
+  // One pass over every vial's dispenses: solids weighed and liquids taken as supplied.
+  const directTotals = new Map<string, { solidMmol: number; solidMassMg: number | null; neatMmol: number; neatVolumeUl: number; neatMassMg: number | null }>();
+  for (const r of runs) {
+    for (const dsp of r.dispense) {
+      if (dsp.kind !== "solid" && dsp.kind !== "neat") continue;
+      const t = directTotals.get(dsp.source) ?? { solidMmol: 0, solidMassMg: 0, neatMmol: 0, neatVolumeUl: 0, neatMassMg: 0 };
+      const mm = dsp.delivers[0]?.mmol ?? 0;
+      if (dsp.kind === "solid") {
+        t.solidMmol += mm;
+        t.solidMassMg = t.solidMassMg === null || dsp.massMg === null ? null : t.solidMassMg + dsp.massMg;
+      } else {
+        t.neatMmol += mm;
+        t.neatVolumeUl += dsp.volumeUl ?? 0;
+        t.neatMassMg = t.neatMassMg === null || dsp.massMg === null ? null : t.neatMassMg + dsp.massMg;
+      }
+      directTotals.set(dsp.source, t);
+    }
+  }
   const lines: InventoryLine[] = infos.map((info) => {
     const c = info.component;
     let mmol = 0;
@@ -219,21 +237,11 @@ function inventory(doc: PlanDocument, infos: ComponentInfo[], runs: RunSheetRun[
       if (volumeUl !== null) volumeUl = vol === null ? volumeUl : volumeUl + vol;
     };
     for (const s of stocks) for (const m of s.members) if (m.id === c.id) add(m.mmol, m.weighMg, m.measureUl);
-    let neatVol = 0;
-    let neatMass: number | null = 0;
-    let neatMmol = 0;
-    for (const r of runs) {
-      for (const dsp of r.dispense) {
-        if (dsp.source !== c.id) continue;
-        const mm = dsp.delivers[0]?.mmol ?? 0;
-        if (dsp.kind === "solid") add(mm, dsp.massMg, null);
-        if (dsp.kind === "neat") {
-          neatMmol += mm;
-          neatVol += dsp.volumeUl ?? 0;
-          neatMass = neatMass === null || dsp.massMg === null ? null : neatMass + dsp.massMg;
-        }
-      }
-    }
+    const direct = directTotals.get(c.id);
+    if (direct) add(direct.solidMmol, direct.solidMassMg, null);
+    const neatVol = direct?.neatVolumeUl ?? 0;
+    const neatMass = direct?.neatMassMg ?? null;
+    const neatMmol = direct?.neatMmol ?? 0;
     if (neatVol > 0) {
       const factor = (neatVol * over + d.deadVolumeUl) / neatVol;
       add(neatMmol * factor, neatMass === null ? null : neatMass * factor, neatVol * factor);
