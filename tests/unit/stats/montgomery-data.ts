@@ -1,0 +1,17 @@
+// Montgomery, Example 11.2 (CCD, k = 2, α = √2, 5 centre points), REFERENCE.md §6 [V*];
+// the fit values there are [C], computed with α = √2 exactly (the book prints 1.414).
+const A = Math.SQRT2;
+const PTS112: [number, number, number][] = [
+  [-1, -1, 76.5], [-1, 1, 77.0], [1, -1, 78.0], [1, 1, 79.5],
+  [0, 0, 79.9], [0, 0, 80.3], [0, 0, 80.0], [0, 0, 79.7], [0, 0, 79.8],
+  [A, 0, 78.4], [-A, 0, 75.6], [0, A, 78.5], [0, -A, 77.0],
+];
+/** Example 11.2 as a `fit` input (factors in coded units). */
+export const EX112 = {
+  factors: [
+    { name: "x1", low: -1, high: 1 },
+    { name: "x2", low: -1, high: 1 },
+  ],
+  runs: PTS112.map(([x1, x2, y]) => ({ coded: { x1, x2 }, response: y })),
+};
+
