@@ -9,6 +9,7 @@ import type { VesselType } from "../hazards/vessels";
 import type { PlanDocument } from "./plan-document";
 import type { RunSheet } from "./run-sheet";
 import { solventFlags } from "./stoichiometry";
+import { ulToMl } from "./units";
 
 export interface CautionComponent {
   name: string;
@@ -45,9 +46,10 @@ export interface CautionInput {
 /**
  * Builds the caution input. A component's `volumeUl` is the volume of the dispense
  * that carries it (the stock, master mix or the liquid itself); solids have none.
- * GHS codes imply the flags: H250 pyrophoric; H260, H261, EUH014 water-reactive.
- * Solvents of the system are listed as components too, with their own flags, so the
- * incompatibility rules see water in the vial.
+ * GHS codes imply the flags: H250 pyrophoric; H260, H261, EUH014 water-reactive; other
+ * flags are passed only when the plan declares them. Solvents of the system are listed
+ * as components too (protic/aqueous defaults for water and the common alcohols, and the
+ * container dates the plan gives), so the incompatibility and peroxide rules see them.
  */
 export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionInput {
   const comps = doc.recipe.components;
@@ -61,17 +63,19 @@ export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionIn
         const ghs = new Set(c.hazards.ghs);
         const row = r.components.find((x) => x.id === c.id)!;
         const carrier = r.dispense.find((d) => d.source === row.source);
+        // Flags only as declared (or implied by the GHS codes): the hazard engine falls back
+        // to its solvent records and the GHS codes for what is not said here.
         const out: CautionComponent = {
           name: c.name,
           ghs: [...ghs],
           pyrophoric: c.hazards.pyrophoric ?? ghs.has("H250"),
           waterReactive: c.hazards.waterReactive ?? (ghs.has("H260") || ghs.has("H261") || ghs.has("EUH014")),
-          peroxideClass: c.hazards.peroxideClass ?? (ghs.has("EUH019") ? "B" : null),
-          protic: c.hazards.protic ?? false,
-          aqueous: c.hazards.aqueous ?? false,
           openedOn: c.hazards.openedOn ?? null,
           peroxideTestedOn: c.hazards.peroxideTestedOn ?? null,
         };
+        if (c.hazards.peroxideClass !== undefined) out.peroxideClass = c.hazards.peroxideClass;
+        if (c.hazards.protic !== undefined) out.protic = c.hazards.protic;
+        if (c.hazards.aqueous !== undefined) out.aqueous = c.hazards.aqueous;
         if (carrier && carrier.volumeUl !== null && carrier.kind !== "solid") out.volumeUl = carrier.volumeUl;
         return out;
       });
@@ -79,21 +83,22 @@ export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionIn
         const sv = r.solvents.find((x) => x.name === s.name);
         if (!sv || sv.volumeFraction <= 0) continue;
         const flags = solventFlags(s);
-        components.push({
+        const solvent: CautionComponent = {
           name: s.name,
           ghs: s.ghs,
           protic: flags.protic,
           aqueous: flags.aqueous,
-          peroxideClass: s.peroxideClass ?? null,
           openedOn: s.openedOn ?? null,
           peroxideTestedOn: s.peroxideTestedOn ?? null,
           volumeUl: sv.volumeUl,
-        });
+        };
+        if (s.peroxideClass !== undefined) solvent.peroxideClass = s.peroxideClass;
+        components.push(solvent);
       }
       const run: CautionRun = {
         run: r.run,
         temperatureC: r.temperatureC,
-        liquidVolumeMl: r.finalVolumeUl / 1000,
+        liquidVolumeMl: ulToMl(r.finalVolumeUl),
         solvents: r.solvents.filter((s) => s.volumeFraction > 0).map((s) => ({ name: s.name, volumeFraction: s.volumeFraction })),
         gasReleasedMmol: r.totals.gasReleasedMmol,
         concentratesOrHeatsToDryness: doc.recipe.concentratesOrHeatsToDryness,
