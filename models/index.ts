@@ -9,8 +9,15 @@ import { Membership } from "./membership";
 import { AuditEntry } from "./audit-entry";
 import { SignInAttempt } from "./sign-in-attempt";
 import { Invitation } from "./invitation";
+import { Location } from "./location";
+import { Chemical } from "./chemical";
+import { SafetyDataSheet } from "./safety-data-sheet";
+import { Container } from "./container";
+import { Reservation } from "./reservation";
+import { StockLedgerEntry } from "./stock-ledger-entry";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
+export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -19,10 +26,20 @@ export function initModels(sequelize: Sequelize): void {
   AuditEntry.initModel(sequelize);
   SignInAttempt.initModel(sequelize);
   Invitation.initModel(sequelize);
+  Location.initModel(sequelize);
+  Chemical.initModel(sequelize);
+  SafetyDataSheet.initModel(sequelize);
+  Container.initModel(sequelize);
+  Reservation.initModel(sequelize);
+  StockLedgerEntry.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
   Lab.hasMany(Membership, { foreignKey: "labId", as: "memberships" });
   User.hasMany(Membership, { foreignKey: "userId", as: "memberships" });
   Invitation.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
+  Container.belongsTo(Chemical, { foreignKey: "chemicalId", as: "chemical" });
+  Container.belongsTo(Location, { foreignKey: "locationId", as: "location" });
+  Chemical.hasMany(Container, { foreignKey: "chemicalId", as: "containers" });
+  Reservation.belongsTo(Container, { foreignKey: "containerId", as: "container" });
 }

@@ -1,0 +1,69 @@
+import "server-only";
+import { Op } from "sequelize";
+import { parseOrThrow } from "@/lib/errors/app-error";
+import { availabilityInputSchema } from "@/lib/schemas/inventory";
+import { Chemical, Container } from "@/lib/server/models";
+import { proposeContainers, type ChemicalFacts, type ContainerFacts } from "../availability";
+import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
+
+/** Loads what proposeContainers needs for some chemicals of one lab (tenant in every query). */
+export async function loadStockFacts(labId: string, chemicalIds: string[]): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[] }> {
+  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: chemicalIds } } });
+  const boxes = await Container.findAll({ where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } } });
+  const held = await heldByContainer(boxes.map((b) => b.id));
+  return {
+    chemicals: chems.map((c) => ({
+      id: c.id,
+      name: c.name,
+      molarMass: c.molarMass,
+      density: c.density,
+      peroxideClass: c.peroxideClass,
+      lowStockBase: c.lowStockBase === null ? null : BigInt(c.lowStockBase),
+      lowStockDimension: c.lowStockDimension,
+    })),
+    containers: boxes.map((b) => ({
+      id: b.id,
+      barcode: b.barcode,
+      chemicalId: b.chemicalId,
+      dimension: b.dimension,
+      amountBase: BigInt(b.amountBase),
+      heldBase: held.get(b.id) ?? 0n,
+      status: b.status,
+      purityPercent: b.purityPercent,
+      concentration: b.concentration,
+      concentrationUnit: b.concentrationUnit,
+      receivedOn: b.receivedOn,
+      openedOn: b.openedOn,
+      expiresOn: b.expiresOn,
+      peroxideTestedOn: b.peroxideTestedOn,
+    })),
+  };
+}
+
+/**
+ * Availability for a run sheet's requirements in one lab: proposed containers per
+ * requirement, shortfalls per chemical and warnings (inventory/availability.ts). Reads
+ * only; reserve the proposal with reserveStock. Amounts in the result are base-unit
+ * strings plus display text.
+ * @throws AppError invalid_input.
+ */
+export async function checkAvailability(opts: { labId: string; input: unknown; today?: string }) {
+  const { requirements } = parseOrThrow(availabilityInputSchema, opts.input);
+  const facts = await loadStockFacts(opts.labId, [...new Set(requirements.map((r) => r.chemicalId))]);
+  const proposal = proposeContainers({
+    requirements: requirements.map((r) => ({ chemicalId: r.chemicalId, amount: r.amount, unit: r.unit, label: r.label ?? undefined })),
+    ...facts,
+    today: opts.today ?? todayIso(),
+    peroxideIntervals: await peroxideIntervalsFor(opts.labId),
+  });
+  const names = new Map(facts.chemicals.map((c) => [c.id, c.name]));
+  return {
+    lines: proposal.lines.map((l) => ({
+      ...l,
+      chemicalName: names.get(l.chemicalId) ?? "unknown chemical",
+      picks: l.picks.map((p) => ({ ...p, amountBase: p.amountBase.toString() })),
+    })),
+    shortfalls: proposal.shortfalls,
+    warnings: proposal.warnings,
+  };
+}

@@ -1,0 +1,128 @@
+import "server-only";
+import { QueryTypes } from "sequelize";
+import { AppError, parseOrThrow } from "@/lib/errors/app-error";
+import { chemicalInputSchema, chemicalUpdateSchema, type ChemicalRow, type ChemicalValues } from "@/lib/schemas/inventory";
+import { db, transaction } from "@/lib/server/db";
+import { audit } from "@/lib/server/audit";
+import { Chemical, SafetyDataSheet } from "@/lib/server/models";
+import { fromBase, toBase } from "../units";
+import { toDecimalString } from "../decimal";
+import { amountView, uniqueToConflict } from "./common";
+
+/** The flags GHS statements imply: H250 pyrophoric; H260/H261 water-reactive; EUH019 peroxide former. */
+function impliedFlags(v: Pick<ChemicalValues, "ghsStatements" | "pyrophoric" | "waterReactive" | "peroxideClass">) {
+  const codes = new Set(v.ghsStatements);
+  return {
+    pyrophoric: v.pyrophoric || codes.has("H250"),
+    waterReactive: v.waterReactive || codes.has("H260") || codes.has("H261"),
+    peroxideClass: v.peroxideClass ?? (codes.has("EUH019") ? ("B" as const) : null),
+  };
+}
+
+function attributes(v: ChemicalValues) {
+  const low = v.lowStock ? toBase(v.lowStock.amount, v.lowStock.unit) : null;
+  return {
+    name: v.name,
+    synonyms: v.synonyms,
+    cas: v.cas,
+    formula: v.formula,
+    molarMass: v.molarMass,
+    density: v.density,
+    physicalState: v.physicalState,
+    ghsStatements: [...new Set(v.ghsStatements)],
+    ...impliedFlags(v),
+    storageNotes: v.storageNotes,
+    lowStockBase: low ? low.base.toString() : null,
+    lowStockDimension: low ? low.dimension : null,
+  };
+}
+
+/**
+ * Adds a chemical to the lab's catalogue (CAS number checked by its check digit; unique
+ * per lab). GHS statements set the matching flags (H250, H260/H261, EUH019 → class B
+ * unless a class is given). Audited.
+ * @throws AppError invalid_input, conflict (CAS already in the catalogue).
+ */
+export async function createChemical(opts: { labId: string; actorUserId: string; input: unknown }): Promise<{ id: string }> {
+  const v = parseOrThrow(chemicalInputSchema, opts.input);
+  return transaction(async (t) => {
+    const chem = await Chemical.create({ labId: opts.labId, ...attributes(v) }, { transaction: t }).catch((e: unknown) => uniqueToConflict(e, "cas", `CAS ${v.cas} is already in the catalogue.`));
+    await audit({ labId: opts.labId, actorUserId: opts.actorUserId, action: "chemical.created", entityType: "chemical", entityId: chem.id, after: attributes(v) }, t);
+    return { id: chem.id };
+  });
+}
+
+/**
+ * Changes a chemical's catalogue record (any subset of its fields). Audited with before
+ * and after.
+ * @throws AppError not_found (another lab's or none), invalid_input, conflict (CAS taken).
+ */
+export async function updateChemical(opts: { labId: string; actorUserId: string; chemicalId: string; input: unknown }): Promise<{ id: string }> {
+  const patch = parseOrThrow(chemicalUpdateSchema, opts.input);
+  const given = (opts.input ?? {}) as Record<string, unknown>;
+  return transaction(async (t) => {
+    const chem = await Chemical.findOne({ where: { id: opts.chemicalId, labId: opts.labId }, lock: t.LOCK.UPDATE, transaction: t });
+    if (!chem) throw new AppError("not_found", "No such chemical in this lab.");
+    const before = chem.toJSON();
+    const lowUnit = chem.lowStockDimension === "mass" ? "µg" : "µL";
+    const current: Record<string, unknown> = {
+      name: chem.name,
+      synonyms: chem.synonyms,
+      cas: chem.cas,
+      formula: chem.formula,
+      molarMass: chem.molarMass,
+      density: chem.density,
+      physicalState: chem.physicalState,
+      ghsStatements: chem.ghsStatements,
+      pyrophoric: chem.pyrophoric,
+      waterReactive: chem.waterReactive,
+      peroxideClass: chem.peroxideClass,
+      storageNotes: chem.storageNotes,
+      lowStock: chem.lowStockBase !== null ? { amount: toDecimalString(fromBase(BigInt(chem.lowStockBase), lowUnit), 3), unit: lowUnit } : null,
+    };
+    for (const k of Object.keys(patch)) current[k] = given[k];
+    const merged = parseOrThrow(chemicalInputSchema, current);
+    const attrs = attributes(merged);
+    chem.set(attrs);
+    await chem.save({ transaction: t }).catch((e: unknown) => uniqueToConflict(e, "cas", `CAS ${merged.cas} is already in the catalogue.`));
+    await audit({ labId: opts.labId, actorUserId: opts.actorUserId, action: "chemical.updated", entityType: "chemical", entityId: chem.id, before, after: chem.toJSON() }, t);
+    return { id: chem.id };
+  });
+}
+
+/** Every chemical of the lab with what is on hand (per dimension), its container count and its safety data sheet. */
+export async function listChemicals(opts: { labId: string; q?: string }): Promise<ChemicalRow[]> {
+  const chems = await Chemical.findAll({ where: { labId: opts.labId }, order: [["name", "ASC"]] });
+  const sums = await db().query<{ chemical_id: string; dimension: "mass" | "volume"; total: string; n: string }>(
+    "SELECT chemical_id, dimension, SUM(amount_base)::text AS total, COUNT(*)::text AS n FROM containers WHERE lab_id = :lab AND status IN ('available','quarantined') GROUP BY chemical_id, dimension",
+    { replacements: { lab: opts.labId }, type: QueryTypes.SELECT },
+  );
+  const counts = await db().query<{ chemical_id: string; n: string }>("SELECT chemical_id, COUNT(*)::text AS n FROM containers WHERE lab_id = :lab GROUP BY chemical_id", { replacements: { lab: opts.labId }, type: QueryTypes.SELECT });
+  const sds = await SafetyDataSheet.findAll({ where: { labId: opts.labId }, attributes: ["chemicalId", "filename", "sizeBytes", "createdAt"] });
+  const sdsBy = new Map(sds.map((s) => [s.chemicalId, s]));
+  const q = (opts.q ?? "").trim().toLowerCase();
+  return chems
+    .filter((c) => !q || c.name.toLowerCase().includes(q) || (c.cas ?? "").includes(q) || c.synonyms.some((s) => s.toLowerCase().includes(q)) || (c.formula ?? "").toLowerCase().includes(q))
+    .map((c) => {
+      const s = sdsBy.get(c.id);
+      return {
+        id: c.id,
+        name: c.name,
+        synonyms: c.synonyms,
+        cas: c.cas,
+        formula: c.formula,
+        molarMass: c.molarMass,
+        density: c.density,
+        physicalState: c.physicalState,
+        ghsStatements: c.ghsStatements,
+        pyrophoric: c.pyrophoric,
+        waterReactive: c.waterReactive,
+        peroxideClass: c.peroxideClass,
+        storageNotes: c.storageNotes,
+        lowStock: c.lowStockBase !== null && c.lowStockDimension ? amountView(c.lowStockBase, c.lowStockDimension) : null,
+        onHand: sums.filter((x) => x.chemical_id === c.id).map((x) => amountView(x.total, x.dimension)),
+        containerCount: Number(counts.find((x) => x.chemical_id === c.id)?.n ?? 0),
+        sds: s ? { filename: s.filename, sizeBytes: s.sizeBytes, uploadedAt: s.createdAt.toISOString() } : null,
+      };
+    });
+}
