@@ -3,7 +3,7 @@ import nextPlugin from "@next/eslint-plugin-next";
 
 export default tseslint.config(
   {
-    ignores: ["node_modules/**", ".next/**", ".data/**", ".run/**", "next-env.d.ts", "playwright-report/**", "test-results/**", "migrations/**", "seeders/**", "config/**", "models/**/*.cjs", ".sequelizerc"],
+    ignores: ["node_modules/**", ".next/**", ".next-*/**", ".data/**", ".run/**", "next-env.d.ts", "playwright-report/**", "test-results/**", "migrations/**", "seeders/**", "config/**", "models/**/*.cjs", ".sequelizerc"],
   },
   ...tseslint.configs.recommended,
   {

@@ -44,8 +44,8 @@ export async function main(argv: string[]): Promise<number> {
         { path: "", message: "not valid JSON" },
       ]);
     }
-    const module = await VERBS[verb as VerbName]();
-    const output = await module.run(input);
+    const verbModule = await VERBS[verb as VerbName]();
+    const output = await verbModule.run(input);
     await write(output);
     return 0;
   } catch (error) {
