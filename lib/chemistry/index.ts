@@ -11,3 +11,4 @@ export * from "./design-runs";
 export * from "./run-sheet";
 export * from "./caution-input";
 export * from "./plan-report";
+export * from "./smiles";

@@ -53,8 +53,8 @@ export function hillFormula(atoms: Record<string, number>): string {
  * `K3PO4.H2O`. Square brackets denote isotopes in mf-parser and are refused here
  * (a labelled compound has no standard molar mass).
  *
- * Accepts a formula string or `{ formula }`; `{ smiles }` is refused (not supported:
- * give the formula).
+ * Accepts a formula string or `{ formula }`; for `{ smiles }` use the asynchronous
+ * `smilesMolarMass` of ./smiles.ts (openchemlib is loaded only then).
  *
  * @throws AppError("invalid_input") naming path `formula` (or `smiles`) when the formula
  *   does not parse, is empty, contains an unknown element or group, or an element with
@@ -66,7 +66,7 @@ export function molarMass(input: string | MolarMassInput | unknown): MolarMassRe
   if (parsed.formula === undefined) {
     throw AppError.field(
       "smiles",
-      "SMILES input is not supported; give the molecular formula instead (e.g. { \"formula\": \"C9H11Br\" }).",
+      "SMILES needs the asynchronous smilesMolarMass() (lib/chemistry/smiles.ts); molarMass() takes a formula",
     );
   }
   return formulaMolarMass(parsed.formula, "formula");

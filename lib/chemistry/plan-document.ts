@@ -83,8 +83,8 @@ export const componentSchema = z
     formula: z.string().min(1).max(300).optional(),
     /** Molar mass given directly (g/mol); wins over the formula when both are given. */
     molarMassGPerMol: z.number().gt(0).max(100000).optional(),
-    /** Not supported yet: give `formula` (kept here so the error names the field). */
-    smiles: z.string().optional(),
+    /** SMILES; the plan verb turns it into `formula` (openchemlib) when no formula is given. */
+    smiles: z.string().min(1).max(2000).optional(),
     casNumber: z.string().regex(/^\d{2,7}-\d{2}-\d$/, "must be a CAS number such as 108-86-1").optional(),
     form: formSchema,
     /** Equivalents relative to the limiting reagent (reagents, additives). */
@@ -113,10 +113,13 @@ export const componentSchema = z
   })
   .superRefine((c, ctx) => {
     if (c.formula === undefined && c.molarMassGPerMol === undefined) {
-      ctx.addIssue({ code: "custom", path: ["formula"], message: "give formula or molarMassGPerMol (SMILES is not supported)" });
-    }
-    if (c.smiles !== undefined) {
-      ctx.addIssue({ code: "custom", path: ["smiles"], message: "SMILES input is not supported; give formula or molarMassGPerMol" });
+      if (c.smiles !== undefined) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["smiles"],
+          message: "SMILES must be turned into a formula first (the plan verb does this; in code call resolvePlanSmiles)",
+        });
+      } else ctx.addIssue({ code: "custom", path: ["formula"], message: "give formula, molarMassGPerMol or smiles" });
     }
     if (c.role === "catalyst" && c.loadingMolPercent === undefined) {
       ctx.addIssue({ code: "custom", path: ["loadingMolPercent"], message: "a catalyst needs loadingMolPercent (mol % of metal)" });

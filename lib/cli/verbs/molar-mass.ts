@@ -1,10 +1,15 @@
 /**
- * `cli molar-mass`: `{ "formula": "C9H11Br" }` → `{ formula, gPerMol, monoisotopic, … }`
- * (../shared/CONTRACT.md). SMILES input is refused with an invalid-input error.
+ * `cli molar-mass`: `{ "formula": "C9H11Br" }` or `{ "smiles": "CC(C)c1ccc(Br)cc1" }` →
+ * `{ formula, gPerMol, monoisotopic, … }` (../shared/CONTRACT.md), IUPAC 2021 standard
+ * atomic weights. A SMILES string is turned into its formula by openchemlib first.
  */
-import { molarMass } from "../../chemistry/molar-mass";
+import { parseOrThrow } from "../../errors/app-error";
+import { molarMass, molarMassInputSchema } from "../../chemistry/molar-mass";
+import { smilesMolarMass } from "../../chemistry/smiles";
 
-export function run(input: unknown): unknown {
+export async function run(input: unknown): Promise<unknown> {
   if (typeof input === "string") return molarMass({ formula: input });
-  return molarMass(input);
+  const parsed = parseOrThrow(molarMassInputSchema, input);
+  if (parsed.smiles !== undefined) return smilesMolarMass(parsed.smiles);
+  return molarMass(parsed);
 }

@@ -35,6 +35,25 @@ describe("cli plan", { timeout: 30_000 }, () => {
     expect(r.body.notice).toMatch(/planning aids/);
   });
 
+  it("accepts a component given only by SMILES (formula filled in before planning)", () => {
+    const doc = example();
+    delete doc.recipe.components[0]!.formula;
+    doc.recipe.components[0]!.smiles = "CC(C)c1ccc(Br)cc1";
+    const r = cli("plan", doc);
+    expect(r.status).toBe(0);
+    const comps = r.body.components as Array<{ id: string; molarMassGPerMol: number }>;
+    expect(comps.find((c) => c.id === "arBr")!.molarMassGPerMol).toBeCloseTo(9 * 12.011 + 11 * 1.008 + 79.904, 9);
+  });
+
+  it("a component with a bad SMILES gives exit 2 at its path", () => {
+    const doc = example();
+    delete doc.recipe.components[1]!.formula;
+    doc.recipe.components[1]!.smiles = "B(O)(O";
+    const r = cli("plan", doc);
+    expect(r.status).toBe(2);
+    expect(r.body.error!.issues[0]!.path).toBe("recipe.components.1.smiles");
+  });
+
   it("bad input gives exit 2 and the dotted paths of the fields", () => {
     const doc = example();
     doc.recipe.components[0]!.form = { state: "liquid" }; // density missing
@@ -83,9 +102,16 @@ describe("cli molar-mass", { timeout: 30_000 }, () => {
     expect(r.body.error!.issues[0]!.path).toBe("formula");
   });
 
-  it("SMILES gives exit 2 with a clear message", () => {
-    const r = cli("molar-mass", { smiles: "CCO" });
+  it("SMILES is turned into its formula (openchemlib) and weighed with the same atomic weights", () => {
+    const r = cli("molar-mass", { smiles: "CC(C)c1ccc(Br)cc1" });
+    expect(r.status).toBe(0);
+    expect(r.body.hillFormula).toBe("C9H11Br");
+    expect(r.body.gPerMol as number).toBeCloseTo(9 * 12.011 + 11 * 1.008 + 79.904, 9);
+  });
+
+  it("a SMILES that does not parse gives exit 2 at path smiles", () => {
+    const r = cli("molar-mass", { smiles: "C1CC((" });
     expect(r.status).toBe(2);
-    expect(r.body.error!.message).toMatch(/SMILES input is not supported/);
+    expect(r.body.error!.issues[0]!.path).toBe("smiles");
   });
 });

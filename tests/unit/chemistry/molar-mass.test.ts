@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { MF } from "mf-parser";
 import { AppError } from "@/lib/errors/app-error";
 import { formulaMolarMass, hillFormula, molarMass } from "@/lib/chemistry/molar-mass";
+import { smilesMolarMass } from "@/lib/chemistry/smiles";
 
 // IUPAC/CIAAW "Standard atomic weights of the elements 2021" (Prohaska et al., Pure Appl.
 // Chem. 94 (2022) 573): conventional values for the interval elements (H, B, C, N, O, S,
@@ -87,14 +88,39 @@ describe("molar mass from a formula (IUPAC 2021 standard atomic weights)", () =>
     }
   });
 
-  it("refuses SMILES with a clear invalid-input error", () => {
+  it("the synchronous molarMass() sends SMILES to smilesMolarMass()", () => {
     try {
       molarMass({ smiles: "c1ccccc1" });
       expect.unreachable();
     } catch (e) {
       expect((e as AppError).code).toBe("invalid_input");
       expect((e as AppError).issues[0]?.path).toBe("smiles");
-      expect((e as AppError).message).toMatch(/SMILES input is not supported/);
     }
+  });
+});
+
+describe("molar mass from SMILES (openchemlib parser, IUPAC 2021 weights)", () => {
+  // SMILES written by hand from the structures (OpenSMILES: implicit H by valence);
+  // expected formulas counted by hand, masses computed in this test from the weights above.
+  const cases: Array<[string, string, Record<string, number>]> = [
+    ["CC(C)c1ccc(Br)cc1", "1-bromo-4-isopropylbenzene", { C: 9, H: 11, Br: 1 }],
+    ["COc1ncccc1B(O)O", "2-methoxypyridin-3-ylboronic acid", { C: 6, H: 8, B: 1, N: 1, O: 3 }],
+    ["CCCC[Li]", "n-butyllithium", { C: 4, H: 9, Li: 1 }],
+    ["[K+].[K+].[K+].[O-]P([O-])([O-])=O", "tripotassium phosphate", { K: 3, P: 1, O: 4 }],
+  ];
+  for (const [smiles, name, atoms] of cases) {
+    it(`${name}: ${smiles}`, async () => {
+      const r = await smilesMolarMass(smiles);
+      expect(r.atoms).toEqual(atoms);
+      expect(r.gPerMol).toBeCloseTo(sum(atoms), 9);
+    });
+  }
+
+  it("refuses a SMILES that does not parse, at path 'smiles'", async () => {
+    await expect(smilesMolarMass("C1CC((")).rejects.toMatchObject({ code: "invalid_input", issues: [{ path: "smiles" }] });
+    await expect(smilesMolarMass("  ")).rejects.toMatchObject({ code: "invalid_input" });
+    await expect(smilesMolarMass("xyz")).rejects.toMatchObject({ code: "invalid_input", issues: [{ path: "smiles" }] });
+    // An unclosed branch, which the parser itself would accept.
+    await expect(smilesMolarMass("CC(C")).rejects.toMatchObject({ code: "invalid_input", issues: [{ path: "smiles" }] });
   });
 });
