@@ -13,7 +13,7 @@ import { codeValue, decodeValue, type Factor } from "../doe/factors";
 import { canonicalAnalysis, type SurfaceKind } from "../surface/canonical";
 import { fitInputSchema, type FitInput } from "./fit-schema";
 import { fUpperP, tQuantile, tTwoSidedP } from "./distributions";
-import { fitReducedSubset, leastSquaresQR, reduceProblem } from "./least-squares";
+import { fullFitOfSubset, leastSquaresQR, refitSubset, type LeastSquaresFit } from "./least-squares";
 import { buildTerms, isSquareTerm, modelRow, termContains, type Term } from "./model-terms";
 
 /** One estimated term (CONTRACT.md `fit` output). Null statistics when no residual df. */
@@ -125,25 +125,36 @@ export function codedRunsOf(input: Pick<FitInput, "factors" | "runs">, responseN
   return { X, y };
 }
 
-function pointKey(x: readonly number[]): string {
-  return x.map((v) => Math.round(v * 1e9) / 1e9).join(",");
+/** Groups identical design points (coded values equal to 1e-9): sorts rows, then scans. */
+function groupPoints(X: readonly number[][]): number[][] {
+  const idx = X.map((_, i) => i);
+  const k = X[0]?.length ?? 0;
+  const cmp = (a: number, b: number) => {
+    for (let j = 0; j < k; j++) {
+      const d = X[a]![j]! - X[b]![j]!;
+      if (Math.abs(d) > 1e-9) return d;
+    }
+    return 0;
+  };
+  idx.sort(cmp);
+  const groups: number[][] = [];
+  for (const i of idx) {
+    const last = groups[groups.length - 1];
+    if (last && cmp(last[0]!, i) === 0) last.push(i);
+    else groups.push([i]);
+  }
+  return groups;
 }
 
 /** Pure-error sum of squares from replicated points: Σ over groups of Σ(y − ȳ_g)², df = n − groups. */
 export function pureError(X: readonly number[][], y: readonly number[]): { ss: number; df: number; groups: number } {
-  const groups = new Map<string, number[]>();
-  X.forEach((x, i) => {
-    const k = pointKey(x);
-    const g = groups.get(k);
-    if (g) g.push(y[i]!);
-    else groups.set(k, [y[i]!]);
-  });
+  const groups = groupPoints(X);
   let ss = 0;
-  for (const g of groups.values()) {
-    const m = g.reduce((a, b) => a + b, 0) / g.length;
-    for (const v of g) ss += (v - m) ** 2;
+  for (const g of groups) {
+    const m = g.reduce((a, i) => a + y[i]!, 0) / g.length;
+    for (const i of g) ss += (y[i]! - m) ** 2;
   }
-  return { ss, df: X.length - groups.size, groups: groups.size };
+  return { ss, df: X.length - groups.length, groups: groups.length };
 }
 
 /**
@@ -188,17 +199,17 @@ function modelMatrix(terms: readonly Term[], X: readonly number[][]): Matrix {
  * Backward elimination at level α (Montgomery §10.3): repeatedly drops the term with
  * the largest p-value above α; with `hierarchy`, a term stays while a higher-order
  * term containing it (a*b or a^2 for a) is in the model. The intercept always stays.
- * Returns the kept column indices of X and the dropped ones in the order dropped.
+ * Works on the full fit's factorisation (p-row subproblems). `terms` are the fit's
+ * kept terms; returns indices into them: kept, and dropped in the order dropped.
  */
-export function backwardEliminate(X: Matrix, y: readonly number[], terms: readonly Term[], alpha: number, hierarchy: boolean): { kept: number[]; dropped: number[] } {
-  const rp = reduceProblem(X, y);
-  const n = X.rows;
+export function backwardEliminate(full: LeastSquaresFit, terms: readonly Term[], alpha: number, hierarchy: boolean): { kept: number[]; dropped: number[] } {
+  const n = full.fitted.length;
   let active = terms.map((_, j) => j);
   const dropped: number[] = [];
   for (;;) {
     const df = n - active.length;
     if (df <= 0) break;
-    const fit = fitReducedSubset(rp, active);
+    const fit = refitSubset(full, active);
     const s2 = fit.rss / df;
     let worst = -1;
     let worstP = alpha;
@@ -245,21 +256,19 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
   const aliased = first.aliased.map((j) => allTerms[j]!.name);
   if (aliased.length) warnings.push(`Not estimable from these runs (aliased with earlier terms): ${aliased.join(", ")}.`);
   let terms = first.kept.map((j) => allTerms[j]!);
-  let X = first.aliased.length ? Xfull.subMatrixColumn(first.kept) : Xfull;
+  let fit = first;
   const dropped: string[] = [];
   if (input.prune) {
     if (n - terms.length <= 0) warnings.push("No residual degrees of freedom: the model cannot be pruned by p-values.");
     else {
-      const be = backwardEliminate(X, y, terms, input.prune.alpha, input.prune.hierarchy);
+      const be = backwardEliminate(first, terms, input.prune.alpha, input.prune.hierarchy);
       dropped.push(...be.dropped.map((j) => terms[j]!.name));
       if (be.dropped.length) {
-        X = X.subMatrixColumn(be.kept);
+        fit = fullFitOfSubset(first, be.kept, y);
         terms = be.kept.map((j) => terms[j]!);
       }
     }
   }
-  // leastSquaresQR already refitted without the aliased columns; refit only after pruning.
-  const fit = dropped.length > 0 ? leastSquaresQR(X, y) : first;
   const p = terms.length;
   const dfRes = n - p;
   const s2 = dfRes > 0 ? fit.rss / dfRes : null;

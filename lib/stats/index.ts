@@ -1,6 +1,6 @@
 /** The statistics engine's public API: model terms, least squares, fitting, distributions. */
 export { buildTerms, parseTerm, termName, termValue, modelRow, termContains, isSquareTerm, termDegree, modelSpecSchema, type Term, type ModelSpec } from "./model-terms";
-export { leastSquaresQR, findAliasedColumns, reduceProblem, fitReducedSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ReducedProblem } from "./least-squares";
+export { leastSquaresQR, findAliasedColumns, scaledQr, refitSubset, fullFitOfSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ScaledQr } from "./least-squares";
 export { tQuantile, tTwoSidedP, fQuantile, fUpperP } from "./distributions";
 export { fitInputSchema, observedRunSchema, pruneSchema, type FitInput, type FitInputRaw } from "./fit-schema";
 export {

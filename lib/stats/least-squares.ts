@@ -2,11 +2,30 @@
  * Ordinary least squares by Householder QR with column scaling (Golub & Van Loan,
  * Matrix Computations, §5.3; Björck, Numerical Methods for Least Squares Problems,
  * §2.8 on equilibration): each column is divided by its Euclidean norm before the
- * factorisation and the coefficients are rescaled afterwards. The normal equations
- * are never formed. A column whose scaled R diagonal |r_jj| (its distance from the
- * span of the earlier columns) falls below `tol` is reported as aliased and left out.
+ * factorisation (ml-matrix's QrDecomposition) and the coefficients are rescaled
+ * afterwards. The normal equations are never formed. A column whose scaled R diagonal
+ * |r_jj| (its distance from the span of the earlier columns) falls below `tol` is
+ * reported as aliased and left out.
  */
 import { Matrix, QrDecomposition } from "ml-matrix";
+
+/** Default aliasing tolerance on the scaled R diagonal. */
+export const ALIAS_TOLERANCE = 1e-10;
+
+/**
+ * A Householder QR factorisation of a column-scaled matrix, Xs = X·diag(norms)⁻¹ = Q·R,
+ * with Q kept implicitly as ml-matrix's reflectors.
+ */
+export interface ScaledQr {
+  n: number;
+  p: number;
+  /** The scaled matrix Xs, n×p row-major. */
+  Xs: Float64Array;
+  /** R of the scaled matrix, p×p row-major, upper triangular. */
+  R: Float64Array;
+  norms: number[];
+  qr: QrDecomposition;
+}
 
 /** The least-squares fit of y on the columns of X that are estimable, in column order. */
 export interface LeastSquaresFit {
@@ -23,86 +42,81 @@ export interface LeastSquaresFit {
   /** Diagonal of the hat matrix, hᵢ = ‖Qᵢ‖². */
   leverage: number[];
   rss: number;
+  /** The factorisation of the kept columns, for refitting subsets cheaply. */
+  qr: ScaledQr;
+  /** z = Q'y. */
+  z: number[];
 }
 
-/** Default aliasing tolerance on the scaled R diagonal. */
-export const ALIAS_TOLERANCE = 1e-10;
+/** Column-scaled Householder QR of X by ml-matrix. */
+export function scaledQr(X: Matrix): ScaledQr {
+  const n = X.rows;
+  const p = X.columns;
+  const norms: number[] = [];
+  const scaled = new Matrix(n, p);
+  const Xs = new Float64Array(n * p);
+  for (let j = 0; j < p; j++) {
+    let s = 0;
+    for (let i = 0; i < n; i++) s += X.get(i, j) ** 2;
+    const nrm = Math.sqrt(s);
+    const d = nrm > 0 ? nrm : 1;
+    norms.push(d);
+    for (let i = 0; i < n; i++) {
+      const v = X.get(i, j) / d;
+      scaled.set(i, j, v);
+      Xs[i * p + j] = v;
+    }
+  }
+  const qr = new QrDecomposition(scaled);
+  const Rm = qr.upperTriangularMatrix;
+  const R = new Float64Array(p * p);
+  for (let i = 0; i < p; i++) for (let j = i; j < p; j++) R[i * p + j] = Rm.get(i, j);
+  return { n, p, Xs, R, norms, qr };
+}
 
-function upperInverse(R: Matrix): number[][] {
-  const n = R.rows;
-  const inv: number[][] = Array.from({ length: n }, () => new Array<number>(n).fill(0));
-  for (let j = 0; j < n; j++) {
-    inv[j]![j] = 1 / R.get(j, j);
+function upperInverse(R: Float64Array, p: number): Float64Array {
+  const inv = new Float64Array(p * p);
+  for (let j = 0; j < p; j++) {
+    inv[j * p + j] = 1 / R[j * p + j]!;
     for (let i = j - 1; i >= 0; i--) {
       let s = 0;
-      for (let k = i + 1; k <= j; k++) s += R.get(i, k) * inv[k]![j]!;
-      inv[i]![j] = -s / R.get(i, i);
+      for (let k = i + 1; k <= j; k++) s += R[i * p + k]! * inv[k * p + j]!;
+      inv[i * p + j] = -s / R[i * p + i]!;
     }
   }
   return inv;
 }
 
-/** Splits columns into kept and aliased by the scaled R diagonal of one QR pass. */
-export function findAliasedColumns(X: Matrix, tol = ALIAS_TOLERANCE): { kept: number[]; aliased: number[] } {
-  const { scaled } = scaleColumns(X);
-  const qr = new QrDecomposition(scaled);
-  const R = qr.upperTriangularMatrix;
-  const kept: number[] = [];
-  const aliased: number[] = [];
-  for (let j = 0; j < X.columns; j++) (Math.abs(R.get(j, j)) < tol ? aliased : kept).push(j);
-  return { kept, aliased };
-}
-
-function scaleColumns(X: Matrix): { scaled: Matrix; norms: number[] } {
-  const norms: number[] = [];
-  const scaled = X.clone();
-  for (let j = 0; j < X.columns; j++) {
-    let s = 0;
-    for (let i = 0; i < X.rows; i++) s += X.get(i, j) ** 2;
-    const nrm = Math.sqrt(s);
-    norms.push(nrm > 0 ? nrm : 1);
-    if (nrm > 0) for (let i = 0; i < X.rows; i++) scaled.set(i, j, X.get(i, j) / nrm);
-  }
-  return { scaled, norms };
+/**
+ * Solves the least-squares problem from a factorisation (all columns estimable): the
+ * scaled coefficients by applying the Householder reflectors to y and back-substituting
+ * (ml-matrix `solve`).
+ */
+function solveFactored(f: ScaledQr, y: readonly number[], kept: number[], aliased: number[]): LeastSquaresFit {
+  const bs = f.qr.solve(Matrix.columnVector([...y])).getColumn(0);
+  return finishFit(f, bs, y, kept, aliased);
 }
 
 /**
- * Fits y ≈ Xb by column-scaled Householder QR (ml-matrix). Aliased columns (|r_jj| <
- * tol after scaling) are dropped and reported. Throws RangeError when X and y
- * disagree in length or X has no estimable column.
- * Example: leastSquaresQR(new Matrix([[1,0],[1,1],[1,2]]), [1,3,5]).coefficients → [1, 2]
+ * Everything else from the scaled solution bs: z = Q'y as R·bs, (X'X)⁻¹ = D⁻¹R⁻¹R⁻ᵀD⁻¹,
+ * fitted values, residuals, and leverages hᵢ = ‖R⁻ᵀxᵢ‖² (xᵢ the scaled row).
  */
-export function leastSquaresQR(X: Matrix, y: readonly number[], tol = ALIAS_TOLERANCE): LeastSquaresFit {
-  if (X.rows !== y.length) throw new RangeError(`X has ${X.rows} rows but y has ${y.length} values`);
-  const { kept, aliased } = findAliasedColumns(X, tol);
-  if (kept.length === 0) throw new RangeError("no estimable column");
-  const Xk = aliased.length ? X.subMatrixColumn(kept) : X;
-  const { scaled, norms } = scaleColumns(Xk);
-  const qr = new QrDecomposition(scaled);
-  const Q = qr.orthogonalMatrix; // n × p (thin)
-  const R = qr.upperTriangularMatrix;
-  const n = X.rows;
-  const p = kept.length;
-  // z = Q'y, b_scaled = R⁻¹ z
+function finishFit(f: ScaledQr, bs: number[], y: readonly number[], kept: number[], aliased: number[]): LeastSquaresFit {
+  const { n, p, Xs, R, norms } = f;
   const z = new Array<number>(p).fill(0);
-  for (let j = 0; j < p; j++) {
-    let s = 0;
-    for (let i = 0; i < n; i++) s += Q.get(i, j) * y[i]!;
-    z[j] = s;
-  }
-  const Rinv = upperInverse(R);
-  const coefficients = new Array<number>(p).fill(0);
   for (let i = 0; i < p; i++) {
     let s = 0;
-    for (let j = i; j < p; j++) s += Rinv[i]![j]! * z[j]!;
-    coefficients[i] = s / norms[i]!;
+    for (let j = i; j < p; j++) s += R[i * p + j]! * bs[j]!;
+    z[i] = s;
   }
+  const Rinv = upperInverse(R, p);
+  const coefficients = bs.map((b, i) => b / norms[i]!);
   // (X'X)⁻¹ = D⁻¹ R⁻¹ R⁻ᵀ D⁻¹
   const covUnscaled: number[][] = Array.from({ length: p }, () => new Array<number>(p).fill(0));
   for (let i = 0; i < p; i++)
     for (let j = i; j < p; j++) {
       let s = 0;
-      for (let k = j; k < p; k++) s += Rinv[i]![k]! * Rinv[j]![k]!;
+      for (let k = j; k < p; k++) s += Rinv[i * p + k]! * Rinv[j * p + k]!;
       const v = s / (norms[i]! * norms[j]!);
       covUnscaled[i]![j] = v;
       covUnscaled[j]![i] = v;
@@ -110,65 +124,99 @@ export function leastSquaresQR(X: Matrix, y: readonly number[], tol = ALIAS_TOLE
   const fitted = new Array<number>(n).fill(0);
   const residuals = new Array<number>(n).fill(0);
   const leverage = new Array<number>(n).fill(0);
+  const w = new Float64Array(p);
   let rss = 0;
   for (let i = 0; i < n; i++) {
-    let f = 0;
+    const o = i * p;
+    let fv = 0;
     let h = 0;
+    // w = R⁻ᵀ xᵢ by forward substitution; hᵢ = ‖w‖²
     for (let j = 0; j < p; j++) {
-      const q = Q.get(i, j);
-      f += q * z[j]!;
-      h += q * q;
+      const xij = Xs[o + j]!;
+      fv += xij * bs[j]!;
+      let s = xij;
+      for (let k = 0; k < j; k++) s -= R[k * p + j]! * w[k]!;
+      const wj = s / R[j * p + j]!;
+      w[j] = wj;
+      h += wj * wj;
     }
-    fitted[i] = f;
-    residuals[i] = y[i]! - f;
+    fitted[i] = fv;
+    residuals[i] = y[i]! - fv;
     leverage[i] = h;
     rss += residuals[i]! ** 2;
   }
-  return { kept, aliased, coefficients, covUnscaled, fitted, residuals, leverage, rss };
+  return { kept, aliased, coefficients, covUnscaled, fitted, residuals, leverage, rss, qr: f, z };
+}
+
+/** Splits columns into kept and aliased by the scaled R diagonal of one QR pass. */
+export function findAliasedColumns(X: Matrix, tol = ALIAS_TOLERANCE): { kept: number[]; aliased: number[] } {
+  const f = scaledQr(X);
+  return splitByDiagonal(f, tol);
+}
+
+function splitByDiagonal(f: ScaledQr, tol: number): { kept: number[]; aliased: number[] } {
+  const kept: number[] = [];
+  const aliased: number[] = [];
+  for (let j = 0; j < f.p; j++) (Math.abs(f.R[j * f.p + j]!) < tol ? aliased : kept).push(j);
+  return { kept, aliased };
 }
 
 /**
- * The reduced least-squares problem of a fit: R (p×p, unscaled columns) and z = Q'y,
- * so that for any subset S of columns ‖y − X_S b‖² = ‖z − R_S b‖² + rss_full.
- * Lets backward elimination refit p-column subproblems instead of n-row ones.
+ * Fits y ≈ Xb by column-scaled Householder QR (ml-matrix). Aliased columns (|r_jj| <
+ * tol after scaling) are dropped and reported, and the rest refitted. Throws
+ * RangeError when X and y disagree in length or X has no estimable column.
+ * Example: leastSquaresQR(new Matrix([[1,0],[1,1],[1,2]]), [1,3,5]).coefficients → [1, 2]
  */
-export interface ReducedProblem {
-  R: Matrix;
-  z: number[];
-  rssFull: number;
+export function leastSquaresQR(X: Matrix, y: readonly number[], tol = ALIAS_TOLERANCE): LeastSquaresFit {
+  if (X.rows !== y.length) throw new RangeError(`X has ${X.rows} rows but y has ${y.length} values`);
+  let f = scaledQr(X);
+  const { kept, aliased } = splitByDiagonal(f, tol);
+  if (kept.length === 0) throw new RangeError("no estimable column");
+  if (aliased.length) f = scaledQr(X.subMatrixColumn(kept));
+  return solveFactored(f, y, kept, aliased);
 }
 
-/** Builds the reduced problem from X (full column rank) and y by column-scaled QR. */
-export function reduceProblem(X: Matrix, y: readonly number[]): ReducedProblem {
-  const { scaled, norms } = scaleColumns(X);
-  const qr = new QrDecomposition(scaled);
-  const Q = qr.orthogonalMatrix;
-  const Rs = qr.upperTriangularMatrix;
-  const p = X.columns;
-  const n = X.rows;
-  const z = new Array<number>(p).fill(0);
-  for (let j = 0; j < p; j++) {
-    let s = 0;
-    for (let i = 0; i < n; i++) s += Q.get(i, j) * y[i]!;
-    z[j] = s;
-  }
-  // Unscale R's columns: X = Q R_s D ⇒ R = R_s D.
-  const R = new Matrix(p, p);
-  for (let i = 0; i < p; i++) for (let j = i; j < p; j++) R.set(i, j, Rs.get(i, j) * norms[j]!);
-  // rss_full from the residual itself (not ‖y‖² − ‖z‖², which cancels digits).
-  let rss = 0;
-  for (let i = 0; i < n; i++) {
-    let f = 0;
-    for (let j = 0; j < p; j++) f += Q.get(i, j) * z[j]!;
-    rss += (y[i]! - f) ** 2;
-  }
-  return { R, z, rssFull: rss };
+/** The p×p upper-triangular R of the unscaled columns, R_unscaled = R·diag(norms). */
+function unscaledR(f: ScaledQr): Matrix {
+  const { p, R, norms } = f;
+  const M = new Matrix(p, p);
+  for (let i = 0; i < p; i++) for (let j = i; j < p; j++) M.set(i, j, R[i * p + j]! * norms[j]!);
+  return M;
 }
 
-/** Fits a column subset on the reduced problem: coefficients, (X_S'X_S)⁻¹ and the RSS. */
-export function fitReducedSubset(rp: ReducedProblem, cols: readonly number[]): { coefficients: number[]; covUnscaled: number[][]; rss: number } {
-  const A = rp.R.subMatrixColumn([...cols]);
-  const sub = leastSquaresQR(A, rp.z);
+/**
+ * Refits a column subset S of a fit without touching the n rows again for the
+ * estimates: since X = Q·R, ‖y − X_S b‖² = ‖z − R_S b‖² + rss, a p-row problem.
+ * Returns coefficients, (X_S'X_S)⁻¹ and the RSS. Throws RangeError when the subset is
+ * rank deficient.
+ */
+export function refitSubset(fit: LeastSquaresFit, cols: readonly number[]): { coefficients: number[]; covUnscaled: number[][]; rss: number } {
+  const A = unscaledR(fit.qr).subMatrixColumn([...cols]);
+  const sub = leastSquaresQR(A, fit.z);
   if (sub.aliased.length) throw new RangeError("subset is rank deficient");
-  return { coefficients: sub.coefficients, covUnscaled: sub.covUnscaled, rss: rp.rssFull + sub.rss };
+  return { coefficients: sub.coefficients, covUnscaled: sub.covUnscaled, rss: fit.rss + sub.rss };
+}
+
+/**
+ * The full fit (fitted values, residuals, leverages) of a column subset S, from the
+ * parent factorisation without a new n-row QR: R_S = Q₂R₂ gives X_S = (Q·Q₂)R₂, so R₂
+ * (with the column norms of R_S, equal to those of X_S) is the R of X_S. `cols` index
+ * the parent fit's kept columns. Throws RangeError when the subset is rank deficient.
+ */
+export function fullFitOfSubset(fit: LeastSquaresFit, cols: readonly number[], y: readonly number[]): LeastSquaresFit {
+  const parent = fit.qr;
+  const A = unscaledR(parent).subMatrixColumn([...cols]);
+  const small = scaledQr(A);
+  const s = cols.length;
+  for (let j = 0; j < s; j++) if (Math.abs(small.R[j * s + j]!) < ALIAS_TOLERANCE) throw new RangeError("subset is rank deficient");
+  const bs = small.qr.solve(Matrix.columnVector(fit.z)).getColumn(0);
+  const { n, p } = parent;
+  const Xs = new Float64Array(n * s);
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < s; j++) {
+      const c = cols[j]!;
+      Xs[i * s + j] = (parent.Xs[i * p + c]! * parent.norms[c]!) / small.norms[j]!;
+    }
+  const f: ScaledQr = { n, p: s, Xs, R: small.R, norms: small.norms, qr: small.qr };
+  return finishFit(f, bs, y, cols.map((c) => fit.kept[c]!), []);
 }
