@@ -94,9 +94,10 @@ export function formulaMolarMass(formula: string, path = "formula"): MolarMassRe
   for (const [symbol, n] of Object.entries(atoms)) {
     const weight = standardAtomicWeight(symbol);
     if (weight === undefined) {
+      const hint = symbol === "Ac" ? ' (for acetate write O2CCH3 or C2H3O2, e.g. Pd(O2CCH3)2)' : "";
       throw AppError.field(
         path,
-        `"${symbol}" has no standard atomic weight (an unknown group, or an element without one); write the group out in elements`,
+        `"${symbol}" has no standard atomic weight (an unknown group, or an element without one); write the group out in elements${hint}`,
       );
     }
     if (!Number.isFinite(n) || n < 0) throw AppError.field(path, `atom count of ${symbol} is not a positive number`);
