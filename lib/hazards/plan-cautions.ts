@@ -30,8 +30,8 @@ const isoDate = z
 
 export const planComponentSchema = z.object({
   name: z.string().min(1).max(300),
-  /** GHS hazard statements, e.g. ["H225", "H250", "H261", "H314"]. */
-  ghs: z.array(z.string().max(20)).max(100).default([]),
+  /** GHS hazard statements, e.g. ["H225", "H250", "H261", "H314"] (unchecked strings: unknown ones are ignored). */
+  ghs: z.array(z.string()).default([]),
   pyrophoric: z.boolean().optional(),
   waterReactive: z.boolean().optional(),
   peroxideClass: peroxideClassSchema.nullable().optional(),
@@ -91,31 +91,42 @@ interface Entry {
   code: CautionCode;
   severity: Severity;
   component?: string;
-  runs: Set<number>;
+  runs: number[];
   worstScore: number;
   worstRun: number;
-  message: string;
+  message: () => string;
 }
 
 class CautionAccumulator {
-  private readonly entries = new Map<string, Entry>();
+  private readonly entries = new Map<string, Map<string, Entry>>();
+  /** The run that `push` files firings under. */
+  current = 0;
+
+  push(f: Firing): void {
+    this.add(this.current, f);
+  }
 
   add(run: number, f: Firing): void {
-    const key = `${f.code}\u0000${f.component ?? ""}`;
-    const e = this.entries.get(key);
+    let byComponent = this.entries.get(f.code);
+    if (!byComponent) {
+      byComponent = new Map();
+      this.entries.set(f.code, byComponent);
+    }
+    const component = f.component ?? "";
+    const e = byComponent.get(component);
     if (!e) {
-      this.entries.set(key, {
+      byComponent.set(component, {
         code: f.code,
         severity: f.severity,
         ...(f.component ? { component: f.component } : {}),
-        runs: new Set([run]),
+        runs: [run],
         worstScore: f.score,
         worstRun: run,
         message: f.message,
       });
       return;
     }
-    e.runs.add(run);
+    if (e.runs[e.runs.length - 1] !== run) e.runs.push(run);
     if (f.score > e.worstScore) {
       e.worstScore = f.score;
       e.worstRun = run;
@@ -126,15 +137,16 @@ class CautionAccumulator {
 
   cautions(): Caution[] {
     return [...this.entries.values()]
+      .flatMap((m) => [...m.values()])
       .map((e): Caution => {
-        const runs = [...e.runs].sort((a, b) => a - b);
+        const runs = [...new Set(e.runs)].sort((a, b) => a - b);
         const where = runs.length > 1 ? ` Worst case: run ${e.worstRun} of ${runs.length} runs.` : "";
         return {
           code: e.code,
           severity: e.severity,
           runs,
           ...(e.component ? { component: e.component } : {}),
-          message: e.message + where,
+          message: e.message() + where,
           remedy: CAUTION_RULES[e.code].remedy,
         };
       })
@@ -142,12 +154,23 @@ class CautionAccumulator {
   }
 }
 
-/** GHS statements (H250, H360FD, …) match by their three-digit stem. */
-function hasStatement(ghs: readonly string[], stems: readonly string[]): string[] {
-  return ghs.filter((g) => stems.some((s) => g.toUpperCase().startsWith(s)));
+function cmrKinds(cmr: readonly string[]): string {
+  return [
+    cmr.some((g) => g.startsWith("H340")) ? "mutagenic" : "",
+    cmr.some((g) => g.startsWith("H350")) ? "carcinogenic" : "",
+    cmr.some((g) => g.startsWith("H360")) ? "toxic to reproduction" : "",
+  ]
+    .filter(Boolean)
+    .join(", ");
 }
 
-interface Material {
+/** GHS statements (H250, H360FD, …) match by their three-digit stem. */
+function hasStatement(ghs: readonly string[], stems: readonly string[]): string[] {
+  return ghs.filter((g) => stems.some((s) => g.startsWith(s)));
+}
+
+/** What is fixed about a component whatever the run: its hazards. */
+interface HazardProfile {
   name: string;
   key: string;
   ghs: string[];
@@ -157,47 +180,52 @@ interface Material {
   peroxideClass: PeroxideClass | "unclassified" | null;
   protic: boolean;
   aqueous: boolean;
+  /** H260/H261 statements, and the CMR statements H340/H350/H360 (with suffixes). */
+  waterCodes: string[];
+  cmrCodes: string[];
+}
+
+/** A component as it is in one vial. */
+interface Material {
+  p: HazardProfile;
   volumeUl: number;
   openedOn: string | null | undefined;
   peroxideTestedOn: string | null | undefined;
-  path: string;
 }
 
-function materialFrom(c: PlanComponent, record: SolventRecord | undefined, path: string): Material {
-  const ghs = [...new Set([...c.ghs.map((g) => g.toUpperCase()), ...(record?.ghs.value ?? [])])];
-  const declared = c.peroxideClass ?? record?.peroxideClass?.value ?? null;
-  const peroxideClass = declared ?? (ghs.includes("EUH019") ? "unclassified" : null);
+function profileOf(
+  name: string,
+  statements: readonly string[],
+  flags: { pyrophoric?: boolean; waterReactive?: boolean; peroxideClass?: PeroxideClass | null; protic?: boolean; aqueous?: boolean },
+  record: SolventRecord | undefined,
+): HazardProfile {
+  const ghs = [...new Set([...statements.map((g) => g.toUpperCase()), ...(record?.ghs.value ?? [])])];
+  const declared = flags.peroxideClass ?? record?.peroxideClass?.value ?? null;
+  const waterCodes = hasStatement(ghs, ["H260", "H261"]);
   return {
-    name: c.name,
-    key: record ? `solvent:${record.id}` : `name:${c.name.trim().toLowerCase()}`,
+    name,
+    key: record ? `solvent:${record.id}` : `name:${name.trim().toLowerCase()}`,
     ghs,
-    pyrophoric: c.pyrophoric === true || hasStatement(ghs, ["H250"]).length > 0,
-    waterReactive: c.waterReactive === true || hasStatement(ghs, ["H260", "H261"]).length > 0,
-    peroxideClass,
-    protic: c.protic ?? record?.protic ?? false,
-    aqueous: c.aqueous ?? record?.aqueous ?? false,
-    volumeUl: c.volumeUl ?? 0,
-    openedOn: c.openedOn,
-    peroxideTestedOn: c.peroxideTestedOn,
-    path,
+    pyrophoric: flags.pyrophoric === true || hasStatement(ghs, ["H250"]).length > 0,
+    waterReactive: flags.waterReactive === true || waterCodes.length > 0,
+    peroxideClass: declared ?? (ghs.includes("EUH019") ? "unclassified" : null),
+    protic: flags.protic ?? record?.protic ?? false,
+    aqueous: flags.aqueous ?? record?.aqueous ?? false,
+    waterCodes,
+    cmrCodes: hasStatement(ghs, ["H340", "H350", "H360"]),
   };
 }
 
+const solventMaterials = new WeakMap<SolventRecord, Material>();
+
+/** A solvent of the vial that is not listed among its components (no container data). */
 function solventMaterial(r: SolventRecord): Material {
-  return {
-    name: r.name,
-    key: `solvent:${r.id}`,
-    ghs: r.ghs.value,
-    pyrophoric: false,
-    waterReactive: false,
-    peroxideClass: r.peroxideClass?.value ?? null,
-    protic: r.protic,
-    aqueous: r.aqueous,
-    volumeUl: 0,
-    openedOn: undefined,
-    peroxideTestedOn: undefined,
-    path: "",
-  };
+  let m = solventMaterials.get(r);
+  if (!m) {
+    m = { p: profileOf(r.name, [], {}, r), volumeUl: 0, openedOn: undefined, peroxideTestedOn: undefined };
+    solventMaterials.set(r, m);
+  }
+  return m;
 }
 
 /** Test interval (months) for a peroxide class; unclassified formers get the shortest one. */
@@ -206,8 +234,16 @@ function intervalMonths(t: LabThresholds, cls: PeroxideClass | "unclassified"): 
   return cls === "unclassified" ? Math.min(i.A, i.B, i.C, i.D) : i[cls];
 }
 
+const dateCache = new Map<string, number>();
+
 function ageMonths(nowMs: number, iso: string): number {
-  return (nowMs - Date.parse(iso)) / MS_PER_DAY / DAYS_PER_MONTH;
+  let ms = dateCache.get(iso);
+  if (ms === undefined) {
+    ms = Date.parse(iso);
+    if (dateCache.size > 10000) dateCache.clear();
+    dateCache.set(iso, ms);
+  }
+  return (nowMs - ms) / MS_PER_DAY / DAYS_PER_MONTH;
 }
 
 /**
@@ -238,110 +274,92 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
   const aboveBoiling = new Set<number>();
   let hottest = -Infinity;
   const hotRuns: number[] = [];
+  const vialCache = new Map<string, VialResult>();
+  const profiles = new Map<string, HazardProfile>();
 
   p.runs.forEach((run, i) => {
     const path = `runs.${i}`;
     const T = run.temperatureC;
-    const add = (f: Firing) => acc.add(run.run, f);
+    acc.current = run.run;
 
     // Equipment limits.
     if (T > p.equipment.blockMaxC) {
-      add({ code: "TL-T01", severity: "warning", score: T, message: `${fmt(T, 1)} °C is above the heating block's maximum of ${fmt(p.equipment.blockMaxC, 1)} °C.` });
+      acc.push({ code: "TL-T01", severity: "warning", score: T, message: () => `${fmt(T, 1)} °C is above the heating block's maximum of ${fmt(p.equipment.blockMaxC, 1)} °C.` });
     }
     if (T < p.equipment.coolingMinC) {
-      add({ code: "TL-T02", severity: "warning", score: -T, message: `${fmt(T, 1)} °C is below the cooling method's minimum of ${fmt(p.equipment.coolingMinC, 1)} °C.` });
+      acc.push({ code: "TL-T02", severity: "warning", score: -T, message: () => `${fmt(T, 1)} °C is below the cooling method's minimum of ${fmt(p.equipment.coolingMinC, 1)} °C.` });
     }
     if (T >= t.signOffTemperatureC) {
       hotRuns.push(run.run);
       hottest = Math.max(hottest, T);
     }
 
-    // Solvent system, pressure, fire data.
-    const parts = solventParts(catalogue, run.solvents, `${path}.solvents`, p.vessel.sealed, add);
-    let row: PlanCautionReport["perRun"][number] = { run: run.run, totalBar: null, vaporBar: null, fillFractionHot: null };
-    if (parts) {
-      try {
-        const est = estimateSealedVessel({
-          parts,
-          temperatureC: T,
-          sealTemperatureC: p.sealTemperatureC,
-          sealPressureBar: p.sealPressureBar,
-          vesselVolumeMl: p.vessel.totalVolumeMl,
-          liquidVolumeMl: run.liquidVolumeMl,
-          gasReleasedMmol: run.gasReleasedMmol ?? 0,
-        });
-        row = {
-          run: run.run,
-          totalBar: p.vessel.sealed ? est.totalBar : null,
-          vaporBar: est.vaporBar,
-          fillFractionHot: est.fillFractionHot,
-        };
-        const firings = pressureFirings(est, parts, T, {
-          sealed: p.vessel.sealed,
-          ratedBar: p.vessel.ratedBar,
-          safetyFactor: t.safetyFactor,
-          maxFillFraction: p.vessel.maxFillFraction,
-        });
-        for (const f of firings) {
-          add(f);
-          if (f.code === "TL-V01") aboveBoiling.add(run.run);
-        }
-      } catch (error) {
-        if (!(error instanceof AppError)) throw error;
-        add({
-          code: "TL-V05",
-          severity: p.vessel.sealed ? "blocking" : "warning",
-          score: T,
-          message: `The pressure at ${fmt(T, 1)} °C cannot be estimated: ${error.issues[0]?.message ?? error.message}.`,
-        });
-      }
-      for (const f of fireFirings(parts, T, t.autoignitionMarginC)) add(f);
+    // Solvent system, pressure, fire data: the same conditions give the same answer,
+    // so each distinct vial is computed once (a design repeats its levels).
+    const key = `${run.solvents.map((x) => `${x.name}\u0001${x.volumeFraction}`).join("\u0002")}@${T}/${run.liquidVolumeMl}/${run.gasReleasedMmol ?? 0}`;
+    let vial = vialCache.get(key);
+    if (!vial) {
+      vial = evaluateVial(catalogue, run, `${path}.solvents`, p, t);
+      vialCache.set(key, vial);
     }
+    for (const f of vial.firings) {
+      acc.push(f);
+      if (f.code === "TL-V01") aboveBoiling.add(run.run);
+    }
+    const parts = vial.parts;
+    const row = { run: run.run, totalBar: vial.totalBar, vaporBar: vial.vaporBar, fillFractionHot: vial.fillFractionHot };
     perRun.push(row);
 
     // Materials in the vial: the components, plus solvents not listed as components.
-    const materials: Material[] = run.components.map((c, j) => materialFrom(c, find(c.name), `${path}.components.${j}`));
+    const materials: Material[] = run.components.map((c) => {
+      const pk = `${c.name}\u0001${c.ghs.join(",")}\u0001${c.pyrophoric}${c.waterReactive}${c.peroxideClass}${c.protic}${c.aqueous}`;
+      let profile = profiles.get(pk);
+      if (!profile) {
+        profile = profileOf(c.name, c.ghs, c, find(c.name));
+        profiles.set(pk, profile);
+      }
+      return { p: profile, volumeUl: c.volumeUl ?? 0, openedOn: c.openedOn, peroxideTestedOn: c.peroxideTestedOn };
+    });
     for (const part of parts ?? []) {
-      if (part.volumeFraction > 0 && !materials.some((m) => m.key === `solvent:${part.record.id}`)) {
+      if (part.volumeFraction > 0 && !materials.some((m) => m.p.key === `solvent:${part.record.id}`)) {
         materials.push(solventMaterial(part.record));
       }
     }
-    const wetOnes = materials.filter((m) => m.protic || m.aqueous);
+    const wetOnes = materials.filter((m) => m.p.protic || m.p.aqueous).map((m) => m.p);
 
     for (const m of materials) {
-      if (m.pyrophoric) {
-        pyrophoricNames.add(m.name);
-        add({ code: "TL-R01", severity: "warning", component: m.name, score: m.volumeUl, message: `${m.name} is pyrophoric (H250): it catches fire on contact with air.${m.waterReactive ? " It also reacts with water." : ""}` });
+      const h = m.p;
+      if (h.pyrophoric) {
+        pyrophoricNames.add(h.name);
+        acc.push({ code: "TL-R01", severity: "warning", component: h.name, score: m.volumeUl, message: () => `${h.name} is pyrophoric (H250): it catches fire on contact with air.${h.waterReactive ? " It also reacts with water." : ""}` });
       }
-      if (m.waterReactive) {
-        const codes = hasStatement(m.ghs, ["H260", "H261"]);
-        add({ code: "TL-R02", severity: "warning", component: m.name, score: m.volumeUl, message: `${m.name} reacts with water and releases flammable gas${codes.length ? ` (${codes.join(", ")})` : ""}.` });
+      if (h.waterReactive) {
+        const codes = h.waterCodes;
+        acc.push({ code: "TL-R02", severity: "warning", component: h.name, score: m.volumeUl, message: () => `${h.name} reacts with water and releases flammable gas${codes.length ? ` (${codes.join(", ")})` : ""}.` });
       }
-      if (m.pyrophoric || m.waterReactive) {
-        const tot = reactiveTotals.get(m.key) ?? { name: m.name, ul: 0, runs: new Set<number>() };
+      if (h.pyrophoric || h.waterReactive) {
+        let tot = reactiveTotals.get(h.key);
+        if (!tot) {
+          tot = { name: h.name, ul: 0, runs: new Set<number>() };
+          reactiveTotals.set(h.key, tot);
+        }
         tot.ul += m.volumeUl;
         tot.runs.add(run.run);
-        reactiveTotals.set(m.key, tot);
-        const wet = wetOnes.filter((w) => w.key !== m.key);
+        const wet = wetOnes.length > 0 ? wetOnes.filter((w) => w.key !== h.key) : wetOnes;
         if (wet.length > 0) {
-          add({
+          acc.push({
             code: "TL-R04",
             severity: "blocking",
-            component: m.name,
+            component: h.name,
             score: wet.length,
-            message: `${m.name} is ${m.pyrophoric ? "pyrophoric" : "water-reactive"} and shares the vial with ${wet.map((w) => `${w.name} (${w.aqueous ? "aqueous" : "protic"})`).join(", ")}.`,
+            message: () => `${h.name} is ${h.pyrophoric ? "pyrophoric" : "water-reactive"} and shares the vial with ${wet.map((w) => `${w.name} (${w.aqueous ? "aqueous" : "protic"})`).join(", ")}.`,
           });
         }
       }
-      if (m.peroxideClass) peroxideChecks(m, m.peroxideClass, run.concentratesOrHeatsToDryness === true, t, nowMs, add);
-      const cmr = hasStatement(m.ghs, ["H340", "H350", "H360"]);
+      if (h.peroxideClass) peroxideChecks(m, h.peroxideClass, run.concentratesOrHeatsToDryness === true, t, nowMs, acc);
+      const cmr = h.cmrCodes;
       if (cmr.length > 0) {
-        const kinds = [
-          cmr.some((g) => g.startsWith("H340")) ? "mutagenic" : "",
-          cmr.some((g) => g.startsWith("H350")) ? "carcinogenic" : "",
-          cmr.some((g) => g.startsWith("H360")) ? "toxic to reproduction" : "",
-        ].filter(Boolean);
-        add({ code: "TL-H01", severity: "warning", component: m.name, score: 0, message: `${m.name} is ${kinds.join(", ")} (${cmr.join(", ")}).` });
+        acc.push({ code: "TL-H01", severity: "warning", component: h.name, score: 0, message: () => `${h.name} is ${cmrKinds(cmr)} (${cmr.join(", ")}).` });
       }
     }
   });
@@ -356,7 +374,7 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
           severity: "warning",
           component: tot.name,
           score: ml,
-          message: `${fmt(ml, 2)} mL of ${tot.name} is handled in this plan, above the lab's second-person threshold of ${fmt(t.pyrophoricSecondPersonVolumeMl, 2)} mL.`,
+          message: () => `${fmt(ml, 2)} mL of ${tot.name} is handled in this plan, above the lab's second-person threshold of ${fmt(t.pyrophoricSecondPersonVolumeMl, 2)} mL.`,
         });
       }
     }
@@ -370,7 +388,7 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
         severity: "info",
         component: p.vessel.name,
         score: 0,
-        message: `The rating of ${p.vessel.name} (${fmt(p.vessel.ratedBar)} bar absolute, maximum fill ${fmt(p.vessel.maxFillFraction * 100, 1)} %) is a default that has not been confirmed with the supplier.`,
+        message: () => `The rating of ${p.vessel.name} (${fmt(p.vessel.ratedBar)} bar absolute, maximum fill ${fmt(p.vessel.maxFillFraction * 100, 1)} %) is a default that has not been confirmed with the supplier.`,
       });
     }
   }
@@ -398,6 +416,63 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
   };
 }
 
+interface VialResult {
+  parts: MixturePart[] | null;
+  firings: Firing[];
+  totalBar: number | null;
+  vaporBar: number | null;
+  fillFractionHot: number | null;
+}
+
+type ParsedInput = z.output<typeof planCautionInputSchema>;
+
+/** Pressure, fill and fire rules for one vial's conditions (see run-checks.ts). */
+function evaluateVial(
+  catalogue: SolventCatalogue,
+  run: ParsedInput["runs"][number],
+  solventsPath: string,
+  p: ParsedInput,
+  t: LabThresholds,
+): VialResult {
+  const T = run.temperatureC;
+  const firings: Firing[] = [];
+  const parts = solventParts(catalogue, run.solvents, solventsPath, p.vessel.sealed, firings);
+  const out: VialResult = { parts, firings, totalBar: null, vaporBar: null, fillFractionHot: null };
+  if (!parts) return out;
+  try {
+    const est = estimateSealedVessel({
+      parts,
+      temperatureC: T,
+      sealTemperatureC: p.sealTemperatureC,
+      sealPressureBar: p.sealPressureBar,
+      vesselVolumeMl: p.vessel.totalVolumeMl,
+      liquidVolumeMl: run.liquidVolumeMl,
+      gasReleasedMmol: run.gasReleasedMmol ?? 0,
+    });
+    out.totalBar = p.vessel.sealed ? est.totalBar : null;
+    out.vaporBar = est.vaporBar;
+    out.fillFractionHot = est.fillFractionHot;
+    firings.push(
+      ...pressureFirings(est, parts, T, {
+        sealed: p.vessel.sealed,
+        ratedBar: p.vessel.ratedBar,
+        safetyFactor: t.safetyFactor,
+        maxFillFraction: p.vessel.maxFillFraction,
+      }),
+    );
+  } catch (error) {
+    if (!(error instanceof AppError)) throw error;
+    firings.push({
+      code: "TL-V05",
+      severity: p.vessel.sealed ? "blocking" : "warning",
+      score: T,
+      message: () => `The pressure at ${fmt(T, 1)} °C cannot be estimated: ${error.issues[0]?.message ?? error.message}.`,
+    });
+  }
+  firings.push(...fireFirings(parts, T, t.autoignitionMarginC));
+  return out;
+}
+
 /**
  * Resolves a run's solvents; unknown names give a TL-V05 caution (not an error: a lab
  * may not have entered its solvent yet). Fractions not summing to 1 are an input error.
@@ -407,10 +482,10 @@ function solventParts(
   shares: ReadonlyArray<z.output<typeof solventShareSchema>>,
   path: string,
   sealed: boolean,
-  add: (f: Firing) => void,
+  firings: Firing[],
 ): MixturePart[] | null {
   if (shares.length === 0) {
-    add({ code: "TL-V05", severity: sealed ? "blocking" : "warning", score: 0, message: "No solvent is given for the vial, so its pressure and fire data cannot be checked." });
+    firings.push({ code: "TL-V05", severity: sealed ? "blocking" : "warning", score: 0, message: () => "No solvent is given for the vial, so its pressure and fire data cannot be checked." });
     return null;
   }
   const sum = shares.reduce((s, x) => s + x.volumeFraction, 0);
@@ -419,12 +494,12 @@ function solventParts(
   }
   const unknown = shares.filter((s) => !catalogue.find(s.name)).map((s) => s.name);
   if (unknown.length > 0) {
-    add({
+    firings.push({
       code: "TL-V05",
       severity: sealed ? "blocking" : "warning",
       component: unknown.join(", "),
       score: 0,
-      message: `No solvent record for ${unknown.map((u) => `"${u}"`).join(", ")}: the vial's pressure and fire data cannot be checked.`,
+      message: () => `No solvent record for ${unknown.map((u) => `"${u}"`).join(", ")}: the vial's pressure and fire data cannot be checked.`,
     });
     return null;
   }
@@ -437,39 +512,41 @@ function peroxideChecks(
   concentrates: boolean,
   t: LabThresholds,
   nowMs: number,
-  add: (f: Firing) => void,
+  acc: CautionAccumulator,
 ): void {
   const months = intervalMonths(t, cls);
   const label = cls === "unclassified" ? "unclassified peroxide former (EUH019)" : `peroxide former, class ${cls}`;
-  const testAge = m.peroxideTestedOn ? ageMonths(nowMs, m.peroxideTestedOn) : null;
+  const testedOn = m.peroxideTestedOn;
+  const testAge = testedOn ? ageMonths(nowMs, testedOn) : null;
   const testCurrent = testAge !== null && testAge <= months;
-  if (typeof m.openedOn === "string") {
-    const opened = ageMonths(nowMs, m.openedOn);
+  const openedOn = m.openedOn;
+  if (typeof openedOn === "string") {
+    const opened = ageMonths(nowMs, openedOn);
     if (opened > months && !testCurrent) {
-      add({
+      acc.push({
         code: "TL-X01",
         severity: "warning",
-        component: m.name,
+        component: m.p.name,
         score: opened,
-        message: `${m.name} (${label}) was opened on ${m.openedOn.slice(0, 10)}, ${fmt(opened, 1)} months ago, beyond the lab's ${fmt(months, 1)}-month limit, ${m.peroxideTestedOn ? `and its last peroxide test (${m.peroxideTestedOn.slice(0, 10)}) is older than that` : "with no peroxide test on record"}.`,
+        message: () => `${m.p.name} (${label}) was opened on ${openedOn.slice(0, 10)}, ${fmt(opened, 1)} months ago, beyond the lab's ${fmt(months, 1)}-month limit, ${testedOn ? `and its last peroxide test (${testedOn.slice(0, 10)}) is older than that` : "with no peroxide test on record"}.`,
       });
     }
   } else if (m.openedOn === undefined) {
-    add({
+    acc.push({
       code: "TL-X03",
       severity: "info",
-      component: m.name,
+      component: m.p.name,
       score: 0,
-      message: `${m.name} is a ${label}; the opening date of its container is not recorded.`,
+      message: () => `${m.p.name} is a ${label}; the opening date of its container is not recorded.`,
     });
   }
   if (concentrates) {
-    add({
+    acc.push({
       code: "TL-X02",
       severity: "warning",
-      component: m.name,
+      component: m.p.name,
       score: 1,
-      message: `${m.name} (${label}) is concentrated or heated to dryness in this run${testCurrent ? "" : ", and there is no peroxide test on record within the lab's interval"}.`,
+      message: () => `${m.p.name} (${label}) is concentrated or heated to dryness in this run${testCurrent ? "" : ", and there is no peroxide test on record within the lab's interval"}.`,
     });
   }
 }

@@ -14,7 +14,8 @@ export interface Firing {
   severity: Severity;
   component?: string;
   score: number;
-  message: string;
+  /** Writes the message; called only for the case that is shown (the worst one). */
+  message: () => string;
 }
 
 /** Formats a number for a message (the report's numeric fields stay unrounded). */
@@ -22,7 +23,7 @@ export function fmt(x: number, digits = 2): string {
   return Number.isFinite(x) ? String(Number(x.toFixed(digits))) : String(x);
 }
 
-function fire(code: CautionCode, score: number, message: string, component?: string, severity?: Severity): Firing {
+function fire(code: CautionCode, score: number, message: () => string, component?: string, severity?: Severity): Firing {
   return { code, severity: severity ?? CAUTION_RULES[code].severity, score, message, ...(component ? { component } : {}) };
 }
 
@@ -65,19 +66,21 @@ export function pressureFirings(
       fire(
         "TL-V01",
         est.vaporBar,
-        `At ${fmt(temperatureC, 1)} °C in a sealed vessel the solvent (${label}) is above its boiling point: estimated vapour pressure ${fmt(est.vaporBar)} bar, more than 1 atm (normal boiling point ${nbp}).`,
+        () => `At ${fmt(temperatureC, 1)} °C in a sealed vessel the solvent (${label}) is above its boiling point: estimated vapour pressure ${fmt(est.vaporBar)} bar, more than 1 atm (normal boiling point ${nbp}).`,
         label,
       ),
     );
   }
   if (limits.sealed && limits.ratedBar !== null && est.totalBar !== null) {
     const limit = limits.ratedBar * limits.safetyFactor;
-    if (est.totalBar > limit) {
+    const total = est.totalBar;
+    const rated = limits.ratedBar;
+    if (total > limit) {
       out.push(
         fire(
           "TL-V02",
-          est.totalBar,
-          `Estimated pressure at ${fmt(temperatureC, 1)} °C is ${fmt(est.totalBar)} bar absolute (vapour ${fmt(est.vaporBar)}, air ${fmt(est.airBar ?? 0)}, released gas ${fmt(est.gasBar ?? 0)}), over the limit of ${fmt(limit)} bar (rating ${fmt(limits.ratedBar)} bar × safety factor ${fmt(limits.safetyFactor)}).`,
+          total,
+          () => `Estimated pressure at ${fmt(temperatureC, 1)} °C is ${fmt(total)} bar absolute (vapour ${fmt(est.vaporBar)}, air ${fmt(est.airBar ?? 0)}, released gas ${fmt(est.gasBar ?? 0)}), over the limit of ${fmt(limit)} bar (rating ${fmt(rated)} bar × safety factor ${fmt(limits.safetyFactor)}).`,
         ),
       );
     }
@@ -88,7 +91,7 @@ export function pressureFirings(
       fire(
         "TL-V03",
         Math.max(fill, 1),
-        `At ${fmt(temperatureC, 1)} °C the expanded liquid would fill the sealed vessel (${fmt(est.fillFractionHot * 100, 1)} % of its volume): the hydraulic pressure can burst it.`,
+        () => `At ${fmt(temperatureC, 1)} °C the expanded liquid would fill the sealed vessel (${fmt(est.fillFractionHot * 100, 1)} % of its volume): the hydraulic pressure can burst it.`,
       ),
     );
   } else if (fill > limits.maxFillFraction) {
@@ -96,7 +99,7 @@ export function pressureFirings(
       fire(
         "TL-V03",
         fill,
-        `The liquid fills ${fmt(est.fillFractionSeal * 100, 1)} % of the vessel when sealed and ${fmt(est.fillFractionHot * 100, 1)} % at ${fmt(temperatureC, 1)} °C, above the vessel's maximum of ${fmt(limits.maxFillFraction * 100, 1)} %.`,
+        () => `The liquid fills ${fmt(est.fillFractionSeal * 100, 1)} % of the vessel when sealed and ${fmt(est.fillFractionHot * 100, 1)} % at ${fmt(temperatureC, 1)} °C, above the vessel's maximum of ${fmt(limits.maxFillFraction * 100, 1)} %.`,
       ),
     );
   }
@@ -110,7 +113,7 @@ export function pressureFirings(
         fire(
           "TL-V04",
           Math.abs(temperatureC),
-          `The vapour pressure of ${part.solvent} at ${fmt(temperatureC, 1)} °C (${fmt(part.pureBar, 3)} bar) is ${how}.`,
+          () => `The vapour pressure of ${part.solvent} at ${fmt(temperatureC, 1)} °C (${fmt(part.pureBar, 3)} bar) is ${how}.`,
           part.solvent,
         ),
       );
@@ -133,7 +136,7 @@ export function fireFirings(parts: readonly MixturePart[], temperatureC: number,
         fire(
           "TL-F01",
           temperatureC - fp.value,
-          `${fmt(temperatureC, 1)} °C is above the flash point of ${p.record.name} (${fmt(fp.value, 1)} °C): its vapour can be ignited.`,
+          () => `${fmt(temperatureC, 1)} °C is above the flash point of ${p.record.name} (${fmt(fp.value, 1)} °C): its vapour can be ignited.`,
           p.record.name,
         ),
       );
@@ -144,7 +147,7 @@ export function fireFirings(parts: readonly MixturePart[], temperatureC: number,
         fire(
           "TL-F02",
           temperatureC - ait.value,
-          `${fmt(temperatureC, 1)} °C is within ${fmt(autoignitionMarginC, 1)} °C of the autoignition temperature of ${p.record.name} (${fmt(ait.value, 1)} °C): its vapour can ignite without a spark.`,
+          () => `${fmt(temperatureC, 1)} °C is within ${fmt(autoignitionMarginC, 1)} °C of the autoignition temperature of ${p.record.name} (${fmt(ait.value, 1)} °C): its vapour can ignite without a spark.`,
           p.record.name,
         ),
       );

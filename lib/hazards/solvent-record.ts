@@ -21,6 +21,10 @@ const citation = {
 
 /** A number with its origin. */
 export const sourcedNumberSchema = z.object({ value: z.number(), ...citation });
+
+function sourced(value: z.ZodNumber) {
+  return z.object({ value, ...citation });
+}
 export type SourcedNumber = z.output<typeof sourcedNumberSchema>;
 
 export const peroxideClassSchema = z.enum(["A", "B", "C", "D"]);
@@ -70,17 +74,17 @@ export const solventRecordSchema = z.object({
     .nullable()
     .default(null),
   formula: z.string().max(100).nullable().default(null),
-  molarMassGPerMol: sourcedNumberSchema.refine((v) => v.value > 0, "molar mass must be positive"),
+  molarMassGPerMol: sourced(z.number().positive("molar mass must be positive")),
   /** Liquid density near 20 °C (g/mL). */
-  densityGPerMl: sourcedNumberSchema.refine((v) => v.value > 0, "density must be positive"),
+  densityGPerMl: sourced(z.number().positive("density must be positive")),
   /** Mean cubic expansion coefficient of the liquid (1/K) between room and reaction temperature. */
-  thermalExpansionPerK: sourcedNumberSchema.refine((v) => v.value >= 0 && v.value < 0.01, "expansion must be in [0, 0.01) 1/K"),
-  normalBoilingPointC: sourcedNumberSchema,
+  thermalExpansionPerK: sourced(z.number().min(0).lt(0.01, "expansion must be below 0.01 1/K")),
+  normalBoilingPointC: sourced(z.number().gt(-273.15).max(1000)),
   /** Closed-cup flash point (°C); null when the liquid has none (not flammable). */
   flashPointC: sourcedNumberSchema.nullable().default(null),
   autoignitionC: sourcedNumberSchema.nullable().default(null),
   /** Critical temperature (K): above it no vapour pressure exists. */
-  criticalTemperatureK: sourcedNumberSchema.nullable().default(null),
+  criticalTemperatureK: sourced(z.number().positive()).nullable().default(null),
   peroxideClass: z
     .object({ value: peroxideClassSchema, ...citation })
     .nullable()

@@ -98,7 +98,7 @@ export function vesselPressure(input: unknown): VesselPressureOutput {
     ...fireFirings(parts, v.temperatureC, v.autoignitionMarginC),
   ];
   const cautions = firings
-    .map((f) => ({ code: f.code, severity: f.severity, runs: [], message: f.message, remedy: CAUTION_RULES[f.code].remedy, ...(f.component ? { component: f.component } : {}) }))
+    .map((f) => ({ code: f.code, severity: f.severity, runs: [], message: f.message(), remedy: CAUTION_RULES[f.code].remedy, ...(f.component ? { component: f.component } : {}) }))
     .sort(compareCautions)
     .map(({ code, severity, message, remedy }) => ({ code, severity, message, remedy }));
   if (!Number.isFinite(est.vaporBar)) throw new AppError("internal", "vapour pressure is not a finite number");
