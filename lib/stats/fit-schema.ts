@@ -1,6 +1,7 @@
 /**
  * The `fit` input of CONTRACT.md as a zod schema. Added fields (optional):
- * `responseName` picks one response from runs that carry several in `responses`.
+ * `responseName` picks one response from runs that carry several in `responses`;
+ * `predict` lists points at which to predict with intervals.
  */
 import { z } from "zod";
 import { factorListSchema } from "../doe/factors";
@@ -54,7 +55,28 @@ export function checkRuns(d: FitShape, ctx: z.RefinementCtx, responseNames: (str
   });
 }
 
-export const fitInputSchema = z.object(fitFields).superRefine((d, ctx) => checkRuns(d, ctx));
+/** A point at which to predict: coded or natural values of every factor. */
+export const predictPointSchema = z
+  .object({ coded: pointSchema.optional(), natural: pointSchema.optional() })
+  .refine((p) => p.coded !== undefined || p.natural !== undefined, "give coded or natural values");
+
+export const fitInputSchema = z
+  .object({
+    ...fitFields,
+    /** Points at which to predict with 95 % confidence and prediction intervals. */
+    predict: z.array(predictPointSchema).optional(),
+  })
+  .superRefine((d, ctx) => {
+    checkRuns(d, ctx);
+    const names = d.factors.map((f) => f.name);
+    d.predict?.forEach((p, i) => {
+      const pt = p.coded ?? p.natural;
+      const key = p.coded ? "coded" : "natural";
+      if (!pt) return;
+      for (const n of names) if (pt[n] === undefined) ctx.addIssue({ code: "custom", path: ["predict", i, key, n], message: "is missing" });
+      for (const n of Object.keys(pt)) if (!names.includes(n)) ctx.addIssue({ code: "custom", path: ["predict", i, key, n], message: "is not one of the factors" });
+    });
+  });
 
 export type FitInput = z.output<typeof fitInputSchema>;
 export type FitInputRaw = z.input<typeof fitInputSchema>;

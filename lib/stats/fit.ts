@@ -11,6 +11,7 @@ import { Matrix } from "ml-matrix";
 import { AppError, parseOrThrow } from "../errors/app-error";
 import { codeValue, decodeValue, type Factor } from "../doe/factors";
 import { canonicalAnalysis, type SurfaceKind } from "../surface/canonical";
+import { predictAt } from "../surface/predict";
 import { fitInputSchema, type FitInput } from "./fit-schema";
 import { fUpperP, tQuantile, tTwoSidedP } from "./distributions";
 import { fullFitOfSubset, leastSquaresQR, refitSubset, type LeastSquaresFit } from "./least-squares";
@@ -91,7 +92,18 @@ export interface FitOutput {
   curvature: CurvatureTest | null;
   transform: "none" | "ln";
   diagnostics: Diagnostic[];
+  /** Predictions at the requested points (`predict`), original scale. */
+  predictions: PointPrediction[];
   warnings: string[];
+}
+
+export interface PointPrediction {
+  coded: Record<string, number>;
+  natural: Record<string, number>;
+  predicted: number;
+  stdError: number | null;
+  ci95: [number, number] | null;
+  pi95: [number, number] | null;
 }
 
 /** A fitted model kept for prediction and optimisation (coded units, model scale). */
@@ -361,6 +373,7 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
     curvature: curvatureTest(Xc, y),
     transform: input.transform,
     diagnostics,
+    predictions: [],
     warnings,
   };
   const model: FittedModel = {
@@ -385,5 +398,23 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
  */
 export function fitModel(raw: unknown): FitOutput {
   const input = parseOrThrow(fitInputSchema, raw, "The fit input is not valid.");
-  return fitParsed(input).output;
+  const { output, model } = fitParsed(input);
+  output.predictions = (input.predict ?? []).map((pt, i) => {
+    const x = input.factors.map((f) => {
+      if (pt.coded) return pt.coded[f.name]!;
+      const v = pt.natural![f.name]!;
+      if (f.scale === "log" && !(v > 0)) throw AppError.field(`predict.${i}.natural.${f.name}`, "must be positive for a log-scale factor");
+      return codeValue(f, v);
+    });
+    const pr = predictAt(model, x);
+    return {
+      coded: Object.fromEntries(input.factors.map((f, j) => [f.name, x[j]!])),
+      natural: Object.fromEntries(input.factors.map((f, j) => [f.name, decodeValue(f, x[j]!)])),
+      predicted: pr.predicted,
+      stdError: pr.stdError,
+      ci95: pr.ci95,
+      pi95: pr.pi95,
+    };
+  });
+  return output;
 }

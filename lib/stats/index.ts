@@ -2,7 +2,7 @@
 export { buildTerms, parseTerm, termName, termValue, modelRow, termContains, isSquareTerm, termDegree, modelSpecSchema, type Term, type ModelSpec } from "./model-terms";
 export { leastSquaresQR, findAliasedColumns, scaledQr, refitSubset, fullFitOfSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ScaledQr } from "./least-squares";
 export { tQuantile, tTwoSidedP, fQuantile, fUpperP } from "./distributions";
-export { fitInputSchema, observedRunSchema, pruneSchema, type FitInput, type FitInputRaw } from "./fit-schema";
+export { fitInputSchema, observedRunSchema, pruneSchema, predictPointSchema, type FitInput, type FitInputRaw } from "./fit-schema";
 export {
   fitModel,
   fitParsed,
@@ -18,4 +18,5 @@ export {
   type Diagnostic,
   type CanonicalOutput,
   type CurvatureTest,
+  type PointPrediction,
 } from "./fit";

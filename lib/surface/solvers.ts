@@ -36,76 +36,91 @@ export function evalQuadratic(q: Quadratic, x: readonly number[]): number {
   return v;
 }
 
-function solveLinear(A: number[][], b: number[]): number[] | null {
-  const n = b.length;
-  const M = A.map((r, i) => [...r, b[i]!]);
-  let scale = 0;
-  for (const r of A) for (const v of r) scale = Math.max(scale, Math.abs(v));
-  for (let c = 0; c < n; c++) {
-    let piv = c;
-    for (let r = c + 1; r < n; r++) if (Math.abs(M[r]![c]!) > Math.abs(M[piv]![c]!)) piv = r;
-    if (Math.abs(M[piv]![c]!) <= 1e-12 * (scale || 1)) return null;
-    [M[c], M[piv]] = [M[piv]!, M[c]!];
-    for (let r = c + 1; r < n; r++) {
-      const f = M[r]![c]! / M[c]![c]!;
-      if (f === 0) continue;
-      for (let j = c; j <= n; j++) M[r]![j]! -= f * M[c]![j]!;
+/** Cholesky factor (lower, row-major) of an m×m matrix, or null when not positive definite. */
+function choleskyOf(A: Float64Array, m: number): Float64Array | null {
+  const L = new Float64Array(m * m);
+  for (let j = 0; j < m; j++) {
+    let d = A[j * m + j]!;
+    for (let k = 0; k < j; k++) d -= L[j * m + k]! ** 2;
+    if (!(d > 1e-13)) return null;
+    const r = Math.sqrt(d);
+    L[j * m + j] = r;
+    for (let i = j + 1; i < m; i++) {
+      let t = A[i * m + j]!;
+      for (let k = 0; k < j; k++) t -= L[i * m + k]! * L[j * m + k]!;
+      L[i * m + j] = t / r;
     }
   }
-  const x = new Array<number>(n).fill(0);
-  for (let r = n - 1; r >= 0; r--) {
-    let s = M[r]![n]!;
-    for (let j = r + 1; j < n; j++) s -= M[r]![j]! * x[j]!;
-    x[r] = s / M[r]![r]!;
+  return L;
+}
+
+function cholSolve(L: Float64Array, m: number, b: Float64Array): Float64Array {
+  const y = new Float64Array(m);
+  for (let i = 0; i < m; i++) {
+    let s = b[i]!;
+    for (let k = 0; k < i; k++) s -= L[i * m + k]! * y[k]!;
+    y[i] = s / L[i * m + i]!;
   }
-  return x;
+  for (let i = m - 1; i >= 0; i--) {
+    let s = y[i]!;
+    for (let k = i + 1; k < m; k++) s -= L[k * m + i]! * y[k]!;
+    y[i] = s / L[i * m + i]!;
+  }
+  return y;
 }
 
 /**
- * The exact maximum of a quadratic over the cube [−1, 1]^k by face enumeration
- * (3^k faces; k ≤ 12). Returns the maximiser and its value.
+ * The exact maximum of a quadratic over the cube [−1, 1]^k by face enumeration. The
+ * maximum lies in the relative interior of some face (a vertex counts), where it is a
+ * local maximum of f restricted to the face, so there the free block H_FF is negative
+ * semidefinite; when H_FF is singular, f is constant along a null direction and the
+ * same value is reached on a smaller face. So it suffices, for every free set F with
+ * −H_FF positive definite, to solve x_F = −½H_FF⁻¹(g_F + 2H_F,fixed·x_fixed) =
+ * a_F + M_F·x_fixed for every sign pattern of the fixed factors (one Cholesky per free
+ * set), keep the points inside the box, and take the best. k ≤ 12.
  */
 export function maximizeQuadraticInCube(q: Quadratic): { x: number[]; value: number } {
   const k = q.g.length;
   if (k > 12) throw new RangeError("face enumeration is limited to 12 factors");
-  let best: number[] = new Array<number>(k).fill(0);
-  let bestV = -Infinity;
-  const state = new Array<number>(k).fill(0); // 0 free, 1 at −1, 2 at +1
-  const total = Math.pow(3, k);
-  for (let s = 0; s < total; s++) {
-    let t = s;
-    for (let i = 0; i < k; i++) {
-      state[i] = t % 3;
-      t = Math.floor(t / 3);
+  let best: number[] = new Array<number>(k).fill(-1);
+  let bestV = evalQuadratic(q, best);
+  const x = new Array<number>(k).fill(0);
+  for (let free = 0; free < 1 << k; free++) {
+    const F: number[] = [];
+    const X: number[] = [];
+    for (let i = 0; i < k; i++) ((free >> i) & 1 ? F : X).push(i);
+    const m = F.length;
+    let a: Float64Array | null = null;
+    let M: Float64Array | null = null; // m × |X|
+    if (m > 0) {
+      const negH = new Float64Array(m * m);
+      for (let r = 0; r < m; r++) for (let c = 0; c < m; c++) negH[r * m + c] = -2 * q.H[F[r]!]![F[c]!]!;
+      const L = choleskyOf(negH, m);
+      if (!L) continue;
+      // (−2H_FF) x_F = g_F + 2H_F,X x_X  ⇒  a = (−2H_FF)⁻¹ g_F, column j of M = (−2H_FF)⁻¹ 2H_F,X_j
+      a = cholSolve(L, m, Float64Array.from(F, (i) => q.g[i]!));
+      M = new Float64Array(m * X.length);
+      for (let j = 0; j < X.length; j++) {
+        const col = cholSolve(L, m, Float64Array.from(F, (i) => 2 * q.H[i]![X[j]!]!));
+        for (let r = 0; r < m; r++) M[r * X.length + j] = col[r]!;
+      }
     }
-    const free: number[] = [];
-    const x = new Array<number>(k).fill(0);
-    for (let i = 0; i < k; i++) {
-      if (state[i] === 0) free.push(i);
-      else x[i] = state[i] === 1 ? -1 : 1;
-    }
-    if (free.length > 0) {
-      // ∂f/∂x_F = g_F + 2 H_FF x_F + 2 H_F,fixed x_fixed = 0
-      const A = free.map((i) => free.map((j) => 2 * q.H[i]![j]!));
-      const rhs = free.map((i) => {
-        let v = -q.g[i]!;
-        for (let j = 0; j < k; j++) if (state[j] !== 0) v -= 2 * q.H[i]![j]! * x[j]!;
-        return v;
-      });
-      const sol = solveLinear(A, rhs);
-      if (!sol) continue;
-      let ok = true;
-      free.forEach((i, a) => {
-        const v = sol[a]!;
-        if (Math.abs(v) > 1 + 1e-12) ok = false;
-        x[i] = Math.max(-1, Math.min(1, v));
-      });
-      if (!ok) continue;
-    }
-    const v = evalQuadratic(q, x);
-    if (v > bestV) {
-      bestV = v;
-      best = x;
+    const nx = X.length;
+    for (let pat = 0; pat < 1 << nx; pat++) {
+      for (let j = 0; j < nx; j++) x[X[j]!] = (pat >> j) & 1 ? 1 : -1;
+      let inside = true;
+      for (let r = 0; r < m && inside; r++) {
+        let v = a![r]!;
+        for (let j = 0; j < nx; j++) v += M![r * nx + j]! * x[X[j]!]!;
+        if (Math.abs(v) > 1 + 1e-12) inside = false;
+        x[F[r]!] = Math.max(-1, Math.min(1, v));
+      }
+      if (!inside) continue;
+      const v = evalQuadratic(q, x);
+      if (v > bestV) {
+        bestV = v;
+        best = [...x];
+      }
     }
   }
   return { x: best, value: bestV };

@@ -83,6 +83,18 @@ describe("fit: structure and diagnostics", () => {
     expect(o.aliased).toEqual(["time*loading", "time*base", "loading*base"]);
     expect(o.terms.every((t) => Number.isFinite(t.estimate))).toBe(true);
   });
+  it("predicts with intervals: at a run, CI half-width = t·s·√h and PI half-width = t·s·√(1 + h) (Montgomery §10.6)", () => {
+    const o = fitModel({ ...input, predict: [{ natural: runs[0]!.natural }, { coded: { temperature: 0, time: 0, loading: 0 } }] });
+    const pr = o.predictions[0]!;
+    const d = o.diagnostics[0]!;
+    expect(pr.predicted).toBeCloseTo(d.fitted, 10);
+    const t = 2.571; // t0.975(5), REFERENCE.md §6
+    const s = o.stats.rmse!;
+    expect((pr.ci95![1] - pr.ci95![0]) / 2).toBeCloseTo(t * s * Math.sqrt(d.leverage), 2);
+    expect((pr.pi95![1] - pr.pi95![0]) / 2).toBeCloseTo(t * s * Math.sqrt(1 + d.leverage), 2);
+    expect(o.predictions[1]!.natural).toEqual({ temperature: 80, time: 3, loading: 2 });
+    expect(o.predictions[1]!.predicted).toBeCloseTo(o.terms[0]!.estimate, 10); // centre = intercept
+  });
   it("treats too few runs as a clear input error at path runs", () => {
     const few = runs.slice(0, 8);
     try {
