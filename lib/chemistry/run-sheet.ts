@@ -141,6 +141,7 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
 
   const plan = planDispensing(doc, infos, runs);
   const modeOf = new Map(plan.modes.map((m) => [m.id, m]));
+  const modes = plan.modes;
 
   const sheetRuns: RunSheetRun[] = runs.map((r, ri) => {
     const res = resolved[ri]!;
@@ -168,7 +169,13 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
         volumeUl: plan.solventVolumesUl[ri]![s.name] ?? 0,
         topUpUl: plan.topUpsUl[ri]![s.name] ?? 0,
       })),
-      components: r.amounts.map((a) => ({ ...a, dispensedAs: modeOf.get(a.id)!.mode, source: modeOf.get(a.id)!.source })),
+      components: r.amounts.map((a, ci) => {
+        // The amounts are this function's own objects: extend them in place rather than copy.
+        const row = a as RunSheetComponent;
+        row.dispensedAs = modes[ci]!.mode;
+        row.source = modes[ci]!.source;
+        return row;
+      }),
       dispense,
       totals: {
         finalVolumeUl: r.cond.finalVolumeUl,

@@ -117,6 +117,12 @@ export interface RunProblem {
   run: number;
 }
 
+/** Records a problem when a factor makes a quantity that must be positive ≤ 0 (or NaN). */
+function requirePositive(problems: RunProblem[], factor: string, v: number, run: number, what: string, component?: string): void {
+  if (v > 0) return;
+  problems.push({ key: `nonpositive:${factor}`, component, run, message: `factor "${factor}" gives ${what} ${v} (not positive)` });
+}
+
 /**
  * Applies one run's natural factor values (in the factors' own units) to the recipe.
  * Values that make an amount non-positive, or a solvent fraction leave [0, 1], are
@@ -151,22 +157,12 @@ export function runConditions(doc: PlanDocument, natural: Record<string, number>
     if (raw === undefined) throw AppError.field(`factors.${i}.name`, `run ${run} has no value for factor "${f.name}"`);
     const v = toCanonical(f.binding.kind, raw, f.unit, `factors.${i}.unit`);
     const b = f.binding;
-    const positive = (what: string, component?: string) => {
-      if (!(v > 0)) {
-        problems.push({
-          key: `nonpositive:${f.name}`,
-          component,
-          run,
-          message: `factor "${f.name}" gives ${what} ${v} (not positive)`,
-        });
-      }
-    };
     switch (b.kind) {
       case "temperature":
         cond.temperatureC = v;
         break;
       case "time":
-        positive("a time of");
+        requirePositive(problems, f.name, v, run, "a time of");
         cond.timeH = v;
         break;
       case "stirring":
@@ -174,19 +170,19 @@ export function runConditions(doc: PlanDocument, natural: Record<string, number>
         cond.stirringRpm = v;
         break;
       case "equivalents":
-        positive(`${b.component} equivalents of`, b.component);
+        requirePositive(problems, f.name, v, run, `${b.component} equivalents of`, b.component);
         cond.equivalents[b.component] = v;
         break;
       case "loading":
-        positive(`a ${b.component} loading (mol % metal) of`, b.component);
+        requirePositive(problems, f.name, v, run, `a ${b.component} loading (mol % metal) of`, b.component);
         cond.loadingMolPercent[b.component] = v;
         break;
       case "ligand-ratio":
-        positive(`a ${b.component} ligand-to-metal ratio of`, b.component);
+        requirePositive(problems, f.name, v, run, `a ${b.component} ligand-to-metal ratio of`, b.component);
         cond.ligandToMetalRatio[b.component] = v;
         break;
       case "concentration":
-        positive("a concentration (M) of");
+        requirePositive(problems, f.name, v, run, "a concentration (M) of");
         concentration = { value: v, hold: b.hold };
         break;
       case "solvent-fraction":
