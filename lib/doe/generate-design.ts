@@ -215,6 +215,12 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
       const d = dOptimalPoints(input, factors);
       points = d.points;
       dSummary = d.summary;
+      if (nCentre > 0) {
+        const centreNatural = factors.map((f) => decodeValue(f, 0));
+        if (!satisfiesAll(parseConstraints(input.constraints, factors), centreNatural)) {
+          throw AppError.field("centerPoints", "the centre point violates the constraints");
+        }
+      }
       centre(nCentre, () => 1);
       break;
     }

@@ -7,6 +7,7 @@ import {
   resolutionOf,
   searchGenerators,
   wordLengthPattern,
+  TABLED_GENERATORS,
   definingRelation,
   type DesignOutput,
 } from "../../../lib/doe";
@@ -87,12 +88,23 @@ describe("fractional factorial generators and resolutions", () => {
     // every (k, p) with 3 ≤ k ≤ 10 and k ≤ 2^(k−p) − 1, counted by hand: 1+1+2+3+4+4+5+6 for k = 3…10
     expect(checked).toBe(26);
   });
-  it("the search finds minimum aberration: exhaustive 2^(6−2) search matches Montgomery's E=ABC, F=BCD pattern", () => {
-    // Word-length pattern of I = ABCE = BCDF = ADEF is (A4 = 3); computed in this test.
-    const tab = wordLengthPattern(definingRelation(parseGenerators(["E=ABC", "F=BCD"], 6)), 6);
-    const found = wordLengthPattern(definingRelation(searchGenerators(6, 2)), 6);
-    expect(found).toEqual(tab);
-    expect(tab[4]).toBe(3);
+  it("every tabled default has the minimum-aberration word-length pattern found by exhaustive search", () => {
+    // Fries & Hunter (1980) minimum aberration, checked by exhaustive search over the last p
+    // factors' generators (computed in this test) wherever the search has ≤ 30 000 choices.
+    let checked = 0;
+    for (const [key, gens] of Object.entries(TABLED_GENERATORS)) {
+      const [k, p] = key.split("-").map(Number) as [number, number];
+      const cands = 2 ** (k - p) - 1 - (k - p);
+      let combos = 1;
+      for (let j = 0; j < p; j++) combos = (combos * (cands - j)) / (j + 1);
+      if (combos > 30000) continue;
+      checked++;
+      const tab = wordLengthPattern(definingRelation(parseGenerators(gens, k)), k);
+      expect(wordLengthPattern(definingRelation(searchGenerators(k, p, 30000)), k)).toEqual(tab);
+    }
+    expect(checked).toBeGreaterThanOrEqual(18);
+    // Example: 2^(6−2) with E = ABC, F = BCD has I = ABCE = BCDF = ADEF, three words of length 4.
+    expect(wordLengthPattern(definingRelation(parseGenerators(["E=ABC", "F=BCD"], 6)), 6)[4]).toBe(3);
   });
   it("2^(10−3) has resolution V and 10 + 45 alias chains of 7 words", () => {
     const d = generateDesign({ factors: factors(10), design: "fractional-factorial", fraction: 3, randomize: false });

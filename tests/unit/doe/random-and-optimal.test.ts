@@ -84,6 +84,10 @@ describe("D-optimal designs by Fedorov exchange", () => {
     const b = generateDesign({ factors: F3, design: "d-optimal", runs: 12, seed: 4, randomize: false });
     expect(a.runs).toEqual(b.runs);
   });
+  it("refuses centre points that the constraints exclude", () => {
+    // centre: temperature 90, time 4.5 → 90 + 45 = 135 > 120
+    expect(() => generateDesign({ factors: F3, design: "d-optimal", runs: 12, centerPoints: 1, constraints: [{ expr: "temperature + 10*time <= 120" }] })).toThrow(/centerPoints/);
+  });
   it("fails as infeasible when the constraints leave too few levels for the model", () => {
     // equiv ≥ 1.2 leaves two levels of equiv on the 3-level grid: equiv² is not estimable.
     expect(() => generateDesign({ factors: F3, design: "d-optimal", runs: 14, constraints: [{ expr: "equiv >= 1.2" }] })).toThrow(/singular/);
