@@ -212,15 +212,15 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
       break;
     }
     case "d-optimal": {
-      const d = dOptimalPoints(input, factors);
-      points = d.points;
-      dSummary = d.summary;
       if (nCentre > 0) {
         const centreNatural = factors.map((f) => decodeValue(f, 0));
         if (!satisfiesAll(parseConstraints(input.constraints, factors), centreNatural)) {
           throw AppError.field("centerPoints", "the centre point violates the constraints");
         }
       }
+      const d = dOptimalPoints(input, factors);
+      points = d.points;
+      dSummary = d.summary;
       centre(nCentre, () => 1);
       break;
     }
