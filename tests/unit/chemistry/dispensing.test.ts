@@ -59,6 +59,11 @@ describe("stock planning invariants", () => {
     const sheet = buildRunSheet(doc);
     expect(sheet.components.find((c) => c.id === "additive")!.dispensedAs).not.toBe("neat");
     expect(sheet.notes.filter((n) => n.code.includes("min_pipette"))).toEqual([]);
+    // A stock made from the supplied 1.0 M solution is measured by volume: V = 1000 × n / M.
+    const tbaf = sheet.stocks.flatMap((x) => x.members).find((m) => m.id === "additive")!;
+    expect(tbaf.measureUl!).toBeCloseTo((1000 * tbaf.mmol) / 1.0, 9);
+    expect(tbaf.weighMg).toBeNull();
+    expect(tbaf.concentrationM).toBeLessThanOrEqual(1.0);
     expectStockInvariants(doc, sheet);
     const pd = sheet.stocks.find((s) => s.members.some((m) => m.id === "pd"))!;
     const smallest = Math.min(...sheet.runs.map((r) => r.dispense.find((d) => d.source === pd.id)!.volumeUl!));

@@ -43,6 +43,15 @@ describe("plan report: run sheet + cautions", () => {
     expect(r.runs[0]!.components.find((c) => c.id === "buli")!.volumeUl).toBeCloseTo(220, 9);
   });
 
+  it("groups the generated runs by temperature (a heating block per temperature, PRODUCT.md step 3)", () => {
+    const r = planReport(JSON.parse(readFileSync("examples/plan-suzuki.json", "utf8")));
+    const inRunOrder = [...r.runs].sort((a, b) => a.runOrder - b.runOrder).map((x) => x.temperatureC);
+    // Each temperature appears as one contiguous stretch of the run order.
+    const stretches = inRunOrder.filter((t, i) => i === 0 || t !== inRunOrder[i - 1]);
+    expect(new Set(stretches).size).toBe(stretches.length);
+    expect(stretches.sort((a, b) => a - b)).toEqual([60, 80, 100]);
+  });
+
   it("gives one pressure estimate per run of the example plan", () => {
     const r = planReport(JSON.parse(readFileSync("examples/plan-suzuki.json", "utf8")));
     expect(r.perRun.map((p) => p.run).sort((a, b) => a - b)).toEqual(r.runs.map((x) => x.run).sort((a, b) => a - b));
