@@ -28,8 +28,10 @@ const isoDate = z
   .string()
   .refine((s) => /^\d{4}-\d{2}-\d{2}/.test(s) && !Number.isNaN(Date.parse(s)), "not an ISO date (YYYY-MM-DD)");
 
+// Per-run schemas keep only the checks that matter: they are parsed once per vial and
+// component (a 1536-vial plate has ~10⁴ components).
 export const planComponentSchema = z.object({
-  name: z.string().min(1).max(300),
+  name: z.string().min(1),
   /** GHS hazard statements, e.g. ["H225", "H250", "H261", "H314"] (unchecked strings: unknown ones are ignored). */
   ghs: z.array(z.string()).default([]),
   pyrophoric: z.boolean().optional(),
@@ -42,6 +44,8 @@ export const planComponentSchema = z.object({
   /** Date the container was opened; null = unopened; absent = not recorded. */
   openedOn: isoDate.nullable().optional(),
   peroxideTestedOn: isoDate.nullable().optional(),
+  /** Date an unopened container was received (for the lab's unopened-container interval). */
+  receivedOn: isoDate.nullable().optional(),
 });
 
 export const planRunSchema = z.object({
@@ -51,10 +55,10 @@ export const planRunSchema = z.object({
   timeH: z.number().min(0).optional(),
   /** Final liquid volume in the vial (mL). */
   liquidVolumeMl: z.number().positive(),
-  solvents: z.array(solventShareSchema).max(20),
+  solvents: z.array(solventShareSchema),
   gasReleasedMmol: z.number().min(0).optional(),
   concentratesOrHeatsToDryness: z.boolean().optional(),
-  components: z.array(planComponentSchema).max(200).default([]),
+  components: z.array(planComponentSchema).default([]),
 });
 
 export const planCautionInputSchema = z.object({
@@ -93,6 +97,7 @@ interface Entry {
   component?: string;
   runs: number[];
   worstScore: number;
+  leastScore: number;
   worstRun: number;
   message: () => string;
 }
@@ -121,12 +126,14 @@ class CautionAccumulator {
         ...(f.component ? { component: f.component } : {}),
         runs: [run],
         worstScore: f.score,
+        leastScore: f.score,
         worstRun: run,
         message: f.message,
       });
       return;
     }
     if (e.runs[e.runs.length - 1] !== run) e.runs.push(run);
+    if (f.score < e.leastScore) e.leastScore = f.score;
     if (f.score > e.worstScore) {
       e.worstScore = f.score;
       e.worstRun = run;
@@ -140,7 +147,7 @@ class CautionAccumulator {
       .flatMap((m) => [...m.values()])
       .map((e): Caution => {
         const runs = [...new Set(e.runs)].sort((a, b) => a - b);
-        const where = runs.length > 1 ? ` Worst case: run ${e.worstRun} of ${runs.length} runs.` : "";
+        const where = runs.length > 1 && e.worstScore > e.leastScore ? ` Worst case: run ${e.worstRun} of ${runs.length} runs.` : "";
         return {
           code: e.code,
           severity: e.severity,
@@ -191,6 +198,7 @@ interface Material {
   volumeUl: number;
   openedOn: string | null | undefined;
   peroxideTestedOn: string | null | undefined;
+  receivedOn?: string | null | undefined;
 }
 
 function profileOf(
@@ -278,7 +286,6 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
   const profiles = new Map<string, HazardProfile>();
 
   p.runs.forEach((run, i) => {
-    const path = `runs.${i}`;
     const T = run.temperatureC;
     acc.current = run.run;
 
@@ -296,10 +303,11 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
 
     // Solvent system, pressure, fire data: the same conditions give the same answer,
     // so each distinct vial is computed once (a design repeats its levels).
-    const key = `${run.solvents.map((x) => `${x.name}\u0001${x.volumeFraction}`).join("\u0002")}@${T}/${run.liquidVolumeMl}/${run.gasReleasedMmol ?? 0}`;
+    let key = `${T}/${run.liquidVolumeMl}/${run.gasReleasedMmol ?? 0}`;
+    for (const x of run.solvents) key += `\u0001${x.name}\u0002${x.volumeFraction}`;
     let vial = vialCache.get(key);
     if (!vial) {
-      vial = evaluateVial(catalogue, run, `${path}.solvents`, p, t);
+      vial = evaluateVial(catalogue, run, `runs.${i}.solvents`, p, t);
       vialCache.set(key, vial);
     }
     for (const f of vial.firings) {
@@ -318,14 +326,15 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
         profile = profileOf(c.name, c.ghs, c, find(c.name));
         profiles.set(pk, profile);
       }
-      return { p: profile, volumeUl: c.volumeUl ?? 0, openedOn: c.openedOn, peroxideTestedOn: c.peroxideTestedOn };
+      return { p: profile, volumeUl: c.volumeUl ?? 0, openedOn: c.openedOn, peroxideTestedOn: c.peroxideTestedOn, receivedOn: c.receivedOn };
     });
     for (const part of parts ?? []) {
       if (part.volumeFraction > 0 && !materials.some((m) => m.p.key === `solvent:${part.record.id}`)) {
         materials.push(solventMaterial(part.record));
       }
     }
-    const wetOnes = materials.filter((m) => m.p.protic || m.p.aqueous).map((m) => m.p);
+    const anyReactive = materials.some((m) => m.p.pyrophoric || m.p.waterReactive);
+    const wetOnes = anyReactive ? materials.filter((m) => m.p.protic || m.p.aqueous).map((m) => m.p) : [];
 
     for (const m of materials) {
       const h = m.p;
@@ -529,6 +538,19 @@ function peroxideChecks(
         component: m.p.name,
         score: opened,
         message: () => `${m.p.name} (${label}) was opened on ${openedOn.slice(0, 10)}, ${fmt(opened, 1)} months ago, beyond the lab's ${fmt(months, 1)}-month limit, ${testedOn ? `and its last peroxide test (${testedOn.slice(0, 10)}) is older than that` : "with no peroxide test on record"}.`,
+      });
+    }
+  } else if (openedOn === null && typeof m.receivedOn === "string") {
+    const receivedOn = m.receivedOn;
+    const held = ageMonths(nowMs, receivedOn);
+    const limit = t.peroxideTestIntervalMonths.unopened;
+    if (held > limit && !(testAge !== null && testAge <= limit)) {
+      acc.push({
+        code: "TL-X01",
+        severity: "warning",
+        component: m.p.name,
+        score: held,
+        message: () => `${m.p.name} (${label}) is in an unopened container received on ${receivedOn.slice(0, 10)}, ${fmt(held, 1)} months ago, beyond the lab's ${fmt(limit, 1)}-month limit for unopened containers, with no peroxide test within that time.`,
       });
     }
   } else if (m.openedOn === undefined) {

@@ -230,7 +230,8 @@ describe("TL-R01 / TL-R02 / TL-R03 / TL-R04 reactive reagents", () => {
 });
 
 describe("TL-X01 / TL-X02 / TL-X03 peroxide formers", () => {
-  // Class B interval 12 months (REFERENCE.md §3, Prudent Practices); "now" is 2026-12-01.
+  // Class B interval 12 months, class A 3 months, unopened 18 months (REFERENCE.md §3,
+  // Prudent Practices in the Laboratory, NRC 2011); "now" is 2026-12-01.
   const thfComponent = (over: Partial<Component>): Component => ({ name: "THF", ghs: ["H225", "EUH019"], peroxideClass: "B", ...over });
   const tol = [{ name: "toluene", volumeFraction: 1 }];
   it("fires when the container was opened 13 months ago with no test", () => {
@@ -248,6 +249,10 @@ describe("TL-X01 / TL-X02 / TL-X03 peroxide formers", () => {
     const ipe = (openedOn: string): Component => ({ name: "diisopropyl ether", ghs: ["H225", "EUH019"], peroxideClass: "A", openedOn });
     expect(codes(one({ solvents: tol, components: [ipe("2026-08-01")] }))).toContain("TL-X01");
     expect(codes(one({ solvents: tol, components: [ipe("2026-10-01")] }))).not.toContain("TL-X01");
+  });
+  it("an unopened container uses the 18-month unopened interval: received 19 months ago fires, 17 months is silent", () => {
+    expect(codes(one({ solvents: tol, components: [thfComponent({ openedOn: null, receivedOn: "2025-05-01" })] }))).toContain("TL-X01");
+    expect(codes(one({ solvents: tol, components: [thfComponent({ openedOn: null, receivedOn: "2025-07-01" })] }))).not.toContain("TL-X01");
   });
   it("a run that concentrates or heats a peroxide former to dryness fires TL-X02; one that does not is silent", () => {
     const c = [thfComponent({ openedOn: "2026-10-01" })];
