@@ -101,7 +101,8 @@ export async function listChemicals(opts: { labId: string; q?: string }): Promis
   const sds = await SafetyDataSheet.findAll({ where: { labId: opts.labId }, attributes: ["chemicalId", "filename", "sizeBytes", "createdAt"] });
   const sdsBy = new Map(sds.map((s) => [s.chemicalId, s]));
   const q = (opts.q ?? "").trim().toLowerCase();
-  return chems
+  return [...chems]
+    .sort((a, b) => a.name.localeCompare(b.name, "en", { sensitivity: "base" }))
     .filter((c) => !q || c.name.toLowerCase().includes(q) || (c.cas ?? "").includes(q) || c.synonyms.some((s) => s.toLowerCase().includes(q)) || (c.formula ?? "").toLowerCase().includes(q))
     .map((c) => {
       const s = sdsBy.get(c.id);

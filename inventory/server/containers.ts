@@ -1,5 +1,5 @@
 import "server-only";
-import { Op, type Order, type WhereOptions } from "sequelize";
+import { Op, col, fn, type Order, type WhereOptions } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { adjustAmountSchema, containerInputSchema, containerQuerySchema, containerUpdateSchema, type ContainerQuery, type ContainerRow } from "@/lib/schemas/inventory";
 import { transaction } from "@/lib/server/db";
@@ -75,12 +75,12 @@ export async function listContainers(opts: { labId: string; query: unknown }): P
   }
   const dir = query.dir === "desc" ? "DESC" : "ASC";
   const orders: Record<ContainerQuery["sort"], Order> = {
-    name: [[{ model: Chemical, as: "chemical" }, "name", dir], ["barcode", "ASC"]],
+    name: [[fn("lower", col("chemical.name")), dir], ["barcode", "ASC"]],
     barcode: [["barcode", dir]],
     amount: [["dimension", "ASC"], ["amountBase", dir], ["barcode", "ASC"]],
     expiresOn: [["expiresOn", `${dir} NULLS LAST`], ["barcode", "ASC"]],
     receivedOn: [["receivedOn", `${dir} NULLS LAST`], ["barcode", "ASC"]],
-    location: [[{ model: Location, as: "location" }, "name", `${dir} NULLS LAST`], ["barcode", "ASC"]],
+    location: [[fn("lower", col("location.name")), `${dir} NULLS LAST`], ["barcode", "ASC"]],
   };
   const { rows, count } = await Container.findAndCountAll({
     where: { ...where, ...(and.length ? { [Op.and]: and } : {}) },

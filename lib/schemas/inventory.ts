@@ -280,3 +280,28 @@ export interface ReservationRow {
   reservedAt: string;
   closedAt: string | null;
 }
+
+/**
+ * The chemical form's fields, derived from the chemical schema: GHS statements typed as
+ * one line of text, and the low-stock mark as an amount and a unit. `chemicalFromForm`
+ * turns the parsed form into the API's input.
+ */
+export const chemicalFormSchema = chemicalInputSchema
+  .omit({ ghsStatements: true, lowStock: true, synonyms: true })
+  .extend({
+    ghs: z
+      .string()
+      .transform((s) => s.split(/[\s,;]+/).filter(Boolean).map((c) => c.toUpperCase()))
+      .pipe(z.array(z.string().regex(GHS_CODE, "GHS codes such as H225, EUH019 or P210, separated by spaces"))),
+    lowAmount: z
+      .string()
+      .trim()
+      .refine((v) => v === "" || (isDecimal(v) && parseDecimal(v).n >= 0n), "enter a number, e.g. 50"),
+    lowUnit: stockUnitSchema,
+  });
+export type ChemicalFormInput = z.input<typeof chemicalFormSchema>;
+
+export function chemicalFromForm(v: z.output<typeof chemicalFormSchema>): ChemicalInput {
+  const { ghs, lowAmount, lowUnit, ...rest } = v;
+  return { ...rest, ghsStatements: ghs, lowStock: lowAmount ? { amount: lowAmount, unit: lowUnit } : null };
+}
