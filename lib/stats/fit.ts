@@ -397,6 +397,14 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
  * Example: fitModel({ factors, runs, model: "quadratic" }).terms[0].term === "intercept"
  */
 export function fitModel(raw: unknown): FitOutput {
+  return fitModelWithPredictor(raw).output;
+}
+
+/**
+ * As `fitModel`, and also returns the fitted model for `predictAt`, `surfaceGrid` and
+ * the optimisers (lib/surface). Throws as `fitModel`.
+ */
+export function fitModelWithPredictor(raw: unknown): { output: FitOutput; model: FittedModel } {
   const input = parseOrThrow(fitInputSchema, raw, "The fit input is not valid.");
   const { output, model } = fitParsed(input);
   output.predictions = (input.predict ?? []).map((pt, i) => {
@@ -416,5 +424,5 @@ export function fitModel(raw: unknown): FitOutput {
       pi95: pr.pi95,
     };
   });
-  return output;
+  return { output, model };
 }

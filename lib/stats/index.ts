@@ -5,6 +5,7 @@ export { tQuantile, tTwoSidedP, fQuantile, fUpperP } from "./distributions";
 export { fitInputSchema, observedRunSchema, pruneSchema, predictPointSchema, type FitInput, type FitInputRaw } from "./fit-schema";
 export {
   fitModel,
+  fitModelWithPredictor,
   fitParsed,
   backwardEliminate,
   pureError,

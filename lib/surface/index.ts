@@ -16,3 +16,4 @@ export {
   type Objective,
 } from "./solvers";
 export { optimizeResponse, optimizeInputSchema, type OptimizeInput, type OptimizeOutput, type ResponseAtOptimum } from "./optimize";
+export { surfaceGrid, type SurfaceGrid, type SurfaceGridOptions } from "./grid";

@@ -215,3 +215,13 @@ describe("blocks and hard-to-change factors", () => {
     expect(byOrder.slice(0, 8).every((r) => r.block === 1)).toBe(true);
   });
 });
+
+describe("log-scale factors in designs", () => {
+  it("puts the centre at the geometric mean and axial points at exp(u0 ± α·Δu)", () => {
+    const d = generateDesign({ factors: [{ name: "loading", low: 0.5, high: 2, scale: "log" }, { name: "t", low: 0, high: 1 }], design: "central-composite", randomize: false, centerPoints: 1 });
+    const centre = d.runs.find((r) => r.pointType === "center")!;
+    expect(centre.natural.loading).toBeCloseTo(1, 12); // √(0.5·2), computed by hand
+    const ax = d.runs.filter((r) => r.pointType === "axial")[0]!;
+    expect(ax.natural.loading).toBeCloseTo(Math.exp(-Math.SQRT2 * Math.log(2)), 12); // ln-coding, Δ = ln 2
+  });
+});
