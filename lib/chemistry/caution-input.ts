@@ -99,7 +99,7 @@ export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionIn
         run: r.run,
         temperatureC: r.temperatureC,
         liquidVolumeMl: ulToMl(r.finalVolumeUl),
-        solvents: r.solvents.filter((s) => s.volumeFraction > 0).map((s) => ({ name: s.name, volumeFraction: s.volumeFraction })),
+        solvents: liquidSolvents(doc, r),
         gasReleasedMmol: r.totals.gasReleasedMmol,
         concentratesOrHeatsToDryness: doc.recipe.concentratesOrHeatsToDryness,
         components,
@@ -108,4 +108,24 @@ export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionIn
       return run;
     }),
   };
+}
+
+/**
+ * The solvents actually in a vial, by volume: the solvent system's volumes plus the
+ * carrier solvent of every solution dispensed as supplied (`form.solvent`, e.g. the
+ * hexanes of n-butyllithium), as fractions of their sum (ideal mixing, as the hazard
+ * engine's Raoult's-law estimate assumes). Neat liquid reagents are solutes here.
+ */
+export function liquidSolvents(doc: PlanDocument, r: RunSheet["runs"][number]): Array<{ name: string; volumeFraction: number }> {
+  const volumes = new Map<string, number>();
+  for (const s of r.solvents) if (s.volumeUl > 0) volumes.set(s.name, (volumes.get(s.name) ?? 0) + s.volumeUl);
+  for (const d of r.dispense) {
+    if (d.kind !== "neat" || d.volumeUl === null) continue;
+    const comp = doc.recipe.components.find((c) => c.id === d.source);
+    const carrier = comp?.form.state === "solution" ? comp.form.solvent : undefined;
+    if (carrier) volumes.set(carrier, (volumes.get(carrier) ?? 0) + d.volumeUl);
+  }
+  const total = [...volumes.values()].reduce((a, v) => a + v, 0);
+  if (!(total > 0)) return r.solvents.filter((s) => s.volumeFraction > 0).map((s) => ({ name: s.name, volumeFraction: s.volumeFraction }));
+  return [...volumes.entries()].map(([name, v]) => ({ name, volumeFraction: v / total }));
 }
