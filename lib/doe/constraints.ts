@@ -8,6 +8,7 @@ import { z } from "zod";
 import { AppError } from "../errors/app-error";
 import type { Factor } from "./factors";
 
+/** One constraint as written in the input: `{ "expr": "temperature + 20*time <= 400" }`. */
 export const constraintSchema = z.object({ expr: z.string().min(1) });
 export type ConstraintInput = z.output<typeof constraintSchema>;
 

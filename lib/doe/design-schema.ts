@@ -8,6 +8,7 @@ import { factorListSchema } from "./factors";
 import { constraintSchema } from "./constraints";
 import { modelSpecSchema } from "../stats/model-terms";
 
+/** The design families of CONTRACT.md `design`. */
 export const DESIGN_KINDS = ["full-factorial", "fractional-factorial", "central-composite", "box-behnken", "d-optimal"] as const;
 export type DesignKind = (typeof DESIGN_KINDS)[number];
 
@@ -18,6 +19,10 @@ export const givenRunSchema = z
   .object({ coded: pointSchema.optional(), natural: pointSchema.optional() })
   .refine((r) => r.coded !== undefined || r.natural !== undefined, "give coded or natural values");
 
+/**
+ * The `design` input (CONTRACT.md), with defaults; cross-field checks name the field
+ * (e.g. `runs` is required for d-optimal, `blocks` must be a power of two).
+ */
 export const designInputSchema = z
   .object({
     factors: factorListSchema,

@@ -17,6 +17,7 @@ export const observedRunSchema = z.object({
   responses: z.record(z.string(), z.number().finite()).optional(),
 });
 
+/** Backward elimination settings: level α (default 0.05) and whether hierarchy is kept (default true). */
 export const pruneSchema = z.object({
   alpha: z.number().gt(0).lt(1).default(0.05),
   hierarchy: z.boolean().default(true),
@@ -60,6 +61,7 @@ export const predictPointSchema = z
   .object({ coded: pointSchema.optional(), natural: pointSchema.optional() })
   .refine((p) => p.coded !== undefined || p.natural !== undefined, "give coded or natural values");
 
+/** The `fit` input (CONTRACT.md) with defaults: model quadratic, transform none. */
 export const fitInputSchema = z
   .object({
     ...fitFields,

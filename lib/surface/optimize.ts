@@ -24,6 +24,7 @@ const responseSpecSchema = z.intersection(
   z.object({ model: modelSpecSchema.optional(), transform: z.enum(["none", "ln"]).optional() }),
 );
 
+/** The `optimize` input (CONTRACT.md): the `fit` input plus goal, region, constraints and added fields. */
 export const optimizeInputSchema = z
   .object({
     ...fitFields,

@@ -25,6 +25,7 @@ export interface Quadratic {
   H: number[][];
 }
 
+/** The value c + g'x + x'Hx of a quadratic at x. */
 export function evalQuadratic(q: Quadratic, x: readonly number[]): number {
   let v = q.c;
   for (let i = 0; i < x.length; i++) {

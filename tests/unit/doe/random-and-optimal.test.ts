@@ -73,7 +73,8 @@ describe("D-optimal designs by Fedorov exchange", () => {
     }
   });
   it("finds the 2^2 factorial as the D-optimal 4-run design for the interaction model (Atkinson & Donev)", () => {
-    // For a + b + ab on [−1, 1]², the 2² factorial is D-optimal: X'X = 4I, D-efficiency 100 %.
+    // For a + b + ab on [−1, 1]², the 2² factorial has X'X = 4I, the largest determinant any
+    // ±1 matrix can have (Hadamard's bound): D-optimal, D-efficiency 100 %.
     const d = generateDesign({ factors: F3.slice(0, 2), design: "d-optimal", runs: 4, model: "interaction", seed: 2 });
     expect(d.dOptimal!.dEfficiency).toBeCloseTo(100, 9);
     const pts = d.runs.map((r) => `${r.coded.temperature},${r.coded.time}`).sort();

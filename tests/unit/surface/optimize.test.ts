@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { canonicalAnalysis, desirability, optimizeResponse, overallDesirability, desirabilitySpecSchema } from "../../../lib/surface";
-import { buildTerms } from "../../../lib/stats";
+import { buildTerms, fitModel } from "../../../lib/stats";
 import { EX112 } from "../stats/montgomery-data";
 
 describe("optimum of Montgomery Example 11.2", () => {
@@ -25,13 +25,15 @@ describe("optimum of Montgomery Example 11.2", () => {
     expect(o.onBoundary).toEqual(["x1", "x2"]);
     expect(o.warnings.join(" ")).toMatch(/sphere/);
     // Brute force over the circle of radius √2 (computed in this test) with the fitted model.
+    const fit = fitModel({ ...EX112, model: "quadratic" });
+    const c = (t: string) => fit.terms.find((x) => x.term === t)!.estimate;
     let best = Infinity;
     let bestX = [0, 0];
     for (let i = 0; i < 3600; i++) {
       const th = (2 * Math.PI * i) / 3600;
       const x1 = Math.SQRT2 * Math.cos(th);
       const x2 = Math.SQRT2 * Math.sin(th);
-      const v = 79.94 + 0.99497 * x1 + 0.51517 * x2 - 1.37625 * x1 * x1 - 1.00125 * x2 * x2 + 0.25 * x1 * x2;
+      const v = c("intercept") + c("x1") * x1 + c("x2") * x2 + c("x1^2") * x1 * x1 + c("x2^2") * x2 * x2 + c("x1*x2") * x1 * x2;
       if (v < best) {
         best = v;
         bestX = [x1, x2];
@@ -52,7 +54,9 @@ describe("optimum of Montgomery Example 11.2", () => {
     expect(o.activeConstraints).toEqual(["time + temperature <= 255"]);
     // Exact optimum on the line x2 = −1 − x1 of ŷ (Example 11.2 fit with α = √2): the
     // 1-D quadratic's vertex, computed in this test from the fitted coefficients.
-    const b = { b1: 0.9949747468305817, b2: 0.515165042944952, b11: -1.37625, b22: -1.00125, b12: 0.25 };
+    const fit = fitModel({ factors, runs, model: "quadratic" });
+    const c = (t: string) => fit.terms.find((x) => x.term === t)!.estimate;
+    const b = { b1: c("time"), b2: c("temperature"), b11: c("time^2"), b22: c("temperature^2"), b12: c("time*temperature") };
     // ŷ(x1) = b1x1 + b2(−1−x1) + b11x1² + b22(1 + 2x1 + x1²) + b12(−x1 − x1²) + const
     const A2 = b.b11 + b.b22 - b.b12;
     const A1 = b.b1 - b.b2 + 2 * b.b22 - b.b12;
