@@ -18,7 +18,6 @@ export const LAB_NAV: readonly NavItem[] = [
   { label: "Chemicals", path: "/inventory/chemicals", permission: "chemicals.read" },
   { label: "Reservations", path: "/inventory/reservations", permission: "stock.read" },
   { label: "Shortfalls", path: "/inventory/alerts", permission: "stock.read" },
-  { label: "Import CSV", path: "/inventory/import", permission: "stock.manage" },
   { label: "Members", path: "/members", permission: "members.manage" },
   { label: "Audit log", path: "/audit", permission: "audit.read" },
 ];

@@ -292,7 +292,10 @@ export const chemicalFormSchema = chemicalInputSchema
     ghs: z
       .string()
       .transform((s) => s.split(/[\s,;]+/).filter(Boolean).map((c) => c.toUpperCase()))
-      .pipe(z.array(z.string().regex(GHS_CODE, "GHS codes such as H225, EUH019 or P210, separated by spaces"))),
+      .superRefine((codes, ctx) => {
+        const bad = codes.filter((c) => !GHS_CODE.test(c));
+        if (bad.length) ctx.addIssue({ code: "custom", message: `not GHS codes: ${bad.join(", ")} (use e.g. H225 EUH019 P210)` });
+      }),
     lowAmount: z
       .string()
       .trim()

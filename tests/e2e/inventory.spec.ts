@@ -14,7 +14,8 @@ test("the stockkeeper imports a CSV, finds a container by barcode and sees its l
   ].join("\n");
 
   await signIn(page, DEMO.stockkeeper);
-  await page.getByRole("link", { name: "Import CSV" }).first().click();
+  await page.getByRole("link", { name: "Containers", exact: true }).click();
+  await page.getByRole("link", { name: "Import CSV" }).click();
   await expect(page.getByRole("heading", { name: "Import containers from CSV" })).toBeVisible();
   await page.getByTestId("import-file").setInputFiles({ name: "containers.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
   await expect(page.getByTestId("import-rows")).toContainText(barcode);

@@ -27,7 +27,7 @@ const chemicals = await import("@/app/api/labs/[lab]/chemicals/route");
 const as = (u: { id: string; email: string }) => {
   who.user = { id: u.id, email: u.email, name: u.email };
 };
-const ctx = (params: Record<string, string>) => ({ params: Promise.resolve({ lab: SEED.labs.kestrel.slug, ...params }) });
+const ctx = <P extends Record<string, string>>(params: P) => ({ params: Promise.resolve({ lab: SEED.labs.kestrel.slug as string, ...params }) });
 const get = (path: string) => new Request(`http://test.invalid${path}`);
 const post = (path: string, body: unknown) => new Request(`http://test.invalid${path}`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
 
