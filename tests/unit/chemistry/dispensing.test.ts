@@ -72,6 +72,25 @@ describe("stock planning invariants", () => {
     expect(smallest).toBeLessThanOrEqual(25 * 1.25 + 1e-9);
   });
 
+  it("hold for a central composite design from the design engine with a log-scale loading", () => {
+    // CCD, k = 2, rotatable α = 2^(2/4) = 1.414 (NIST/SEMATECH §5.3.3.6.1), 3 centre points:
+    // 4 + 4 + 3 = 11 runs. On a log scale the axial loadings stay positive:
+    // exp(ln √(0.25·4) ± 1.414 · ln 4) = 1 × 4^(±1.414) ≈ 0.141 and 7.1 mol % (computed here).
+    const plan = smallScreen();
+    plan.factors = [
+      { name: "pdLoading", low: 0.25, high: 4, unit: "mol%", scale: "log", binding: { kind: "loading", component: "pd" } },
+      { name: "baseEquiv", low: 1.5, high: 2.5, unit: "equiv", binding: { kind: "equivalents", component: "base" } },
+    ];
+    plan.design = { design: "central-composite", alpha: "rotatable", centerPoints: 3, seed: 11 };
+    const doc = planDocumentSchema.parse(plan);
+    const sheet = buildRunSheet(doc);
+    expect(sheet.runs).toHaveLength(11);
+    const loadings = sheet.runs.map((r) => r.natural.pdLoading!);
+    expect(Math.min(...loadings)).toBeCloseTo(Math.pow(4, -Math.SQRT2), 6);
+    expect(Math.max(...loadings)).toBeCloseTo(Math.pow(4, Math.SQRT2), 6);
+    expectStockInvariants(doc, sheet);
+  });
+
   it("prepared amounts are the needed volume plus overage and dead volume (rounded up to 2 figures)", () => {
     const doc = planDocumentSchema.parse(smallScreen());
     const sheet = buildRunSheet(doc);
