@@ -50,7 +50,8 @@ async function check(labId: string, input: unknown): Promise<{ preview: ImportPr
     if (!chemByCas.has(r.cas) && r.name && !newNames.has(r.cas)) newNames.set(r.cas, r.name);
     if (!bad) ok.push(r);
   }
-  issues.sort((a, b) => a.row - b.row);
+  const position = (i: ImportIssue) => (parsed.headers.indexOf(i.column) + 1 || parsed.headers.length + 1);
+  issues.sort((a, b) => a.row - b.row || position(a) - position(b));
   const newLocations = new Set(ok.filter((r) => r.location && !locSet.has(r.location.toLowerCase())).map((r) => r.location!.toLowerCase()));
   const preview: ImportPreview = {
     headers: parsed.headers,

@@ -15,6 +15,7 @@ import { consumeReservation, releaseReservation, releaseReservationsForPlan } fr
 import { containerLedger, listReservations } from "@/inventory/server/ledger";
 import { checkAvailability } from "@/inventory/server/availability";
 import { stockAlerts } from "@/inventory/server/stock-alerts";
+import { getSafetyDataSheet, uploadSafetyDataSheet } from "@/inventory/server/safety-data-sheets";
 
 const LAB = SEED.labs.kestrel.id;
 const HARROW = SEED.labs.harrow.id;
@@ -120,6 +121,20 @@ describe("consume and release", () => {
     const { containerId } = await freshContainer("1", "g");
     await expect(db().query("UPDATE stock_ledger SET reason = 'x' WHERE container_id = :id", { replacements: { id: containerId } })).rejects.toThrow(/append-only/);
     await expect(db().query("DELETE FROM stock_ledger WHERE container_id = :id", { replacements: { id: containerId } })).rejects.toThrow(/append-only/);
+  });
+});
+
+describe("safety data sheets", () => {
+  it("stores a PDF in the database and refuses anything else", async () => {
+    const { chemicalId } = await freshContainer("1", "g");
+    const pdf = new TextEncoder().encode("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n");
+    const saved = await uploadSafetyDataSheet({ labId: LAB, actorUserId: KEEPER, chemicalId, filename: "sds.pdf", bytes: pdf });
+    expect(saved.sizeBytes).toBe(pdf.length);
+    const back = await getSafetyDataSheet({ labId: LAB, chemicalId });
+    expect(Buffer.compare(back.data, Buffer.from(pdf))).toBe(0);
+    await expect(uploadSafetyDataSheet({ labId: LAB, actorUserId: KEEPER, chemicalId, filename: "x.pdf", bytes: new TextEncoder().encode("<html>") })).rejects.toMatchObject({ code: "invalid_input", issues: [{ path: "file" }] });
+    await expect(getSafetyDataSheet({ labId: HARROW, chemicalId })).rejects.toMatchObject({ code: "not_found" });
+    await expect(uploadSafetyDataSheet({ labId: HARROW, actorUserId: SEED.users.harrowChemist.id, chemicalId, filename: "x.pdf", bytes: pdf })).rejects.toMatchObject({ code: "not_found" });
   });
 });
 
