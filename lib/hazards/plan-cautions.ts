@@ -283,7 +283,8 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
   let hottest = -Infinity;
   const hotRuns: number[] = [];
   const vialCache = new Map<string, VialResult>();
-  const profiles = new Map<string, HazardProfile>();
+  const componentCache = new Map<string, CachedComponent[]>();
+  const solventCache = new Map<string, { profile: HazardProfile; firings: Firing[] }>();
 
   p.runs.forEach((run, i) => {
     const T = run.temperatureC;
@@ -314,61 +315,62 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
       acc.push(f);
       if (f.code === "TL-V01") aboveBoiling.add(run.run);
     }
-    const parts = vial.parts;
     const row = { run: run.run, totalBar: vial.totalBar, vaporBar: vial.vaporBar, fillFractionHot: vial.fillFractionHot };
     perRun.push(row);
 
     // Materials in the vial: the components, plus solvents not listed as components.
-    const materials: Material[] = run.components.map((c) => {
-      const pk = `${c.name}\u0001${c.ghs.join(",")}\u0001${c.pyrophoric}${c.waterReactive}${c.peroxideClass}${c.protic}${c.aqueous}`;
-      let profile = profiles.get(pk);
-      if (!profile) {
-        profile = profileOf(c.name, c.ghs, c, find(c.name));
-        profiles.set(pk, profile);
+    // A component's own rules (R01, R02, X01–X03, H01) depend only on what it is, its
+    // container dates and whether the run concentrates it: computed once per such case.
+    const concentrates = run.concentratesOrHeatsToDryness === true;
+    const inVial: HazardProfile[] = [];
+    for (const c of run.components) {
+      let cached = findCached(componentCache, c, concentrates);
+      if (!cached) {
+        const profile = profileOf(c.name, c.ghs, c, find(c.name));
+        const item: Material = { p: profile, volumeUl: 0, openedOn: c.openedOn, peroxideTestedOn: c.peroxideTestedOn, receivedOn: c.receivedOn };
+        cached = { c, concentrates, profile, firings: ownFirings(item, concentrates, t, nowMs) };
+        const list = componentCache.get(c.name);
+        if (!list) componentCache.set(c.name, [cached]);
+        else if (list.length < 32) list.push(cached); // bounded: the scan stays short
       }
-      return { p: profile, volumeUl: c.volumeUl ?? 0, openedOn: c.openedOn, peroxideTestedOn: c.peroxideTestedOn, receivedOn: c.receivedOn };
-    });
-    for (const part of parts ?? []) {
-      if (part.volumeFraction > 0 && !materials.some((m) => m.p.key === `solvent:${part.record.id}`)) {
-        materials.push(solventMaterial(part.record));
-      }
-    }
-    const anyReactive = materials.some((m) => m.p.pyrophoric || m.p.waterReactive);
-    const wetOnes = anyReactive ? materials.filter((m) => m.p.protic || m.p.aqueous).map((m) => m.p) : [];
-
-    for (const m of materials) {
-      const h = m.p;
-      if (h.pyrophoric) {
-        pyrophoricNames.add(h.name);
-        acc.push({ code: "TL-R01", severity: "warning", component: h.name, score: m.volumeUl, message: () => `${h.name} is pyrophoric (H250): it catches fire on contact with air.${h.waterReactive ? " It also reacts with water." : ""}` });
-      }
-      if (h.waterReactive) {
-        const codes = h.waterCodes;
-        acc.push({ code: "TL-R02", severity: "warning", component: h.name, score: m.volumeUl, message: () => `${h.name} reacts with water and releases flammable gas${codes.length ? ` (${codes.join(", ")})` : ""}.` });
-      }
+      const h = cached.profile;
+      for (const f of cached.firings) acc.push(f);
+      inVial.push(h);
       if (h.pyrophoric || h.waterReactive) {
         let tot = reactiveTotals.get(h.key);
         if (!tot) {
           tot = { name: h.name, ul: 0, runs: new Set<number>() };
           reactiveTotals.set(h.key, tot);
         }
-        tot.ul += m.volumeUl;
+        tot.ul += c.volumeUl ?? 0;
         tot.runs.add(run.run);
-        const wet = wetOnes.length > 0 ? wetOnes.filter((w) => w.key !== h.key) : wetOnes;
-        if (wet.length > 0) {
-          acc.push({
-            code: "TL-R04",
-            severity: "blocking",
-            component: h.name,
-            score: wet.length,
-            message: () => `${h.name} is ${h.pyrophoric ? "pyrophoric" : "water-reactive"} and shares the vial with ${wet.map((w) => `${w.name} (${w.aqueous ? "aqueous" : "protic"})`).join(", ")}.`,
-          });
-        }
+        if (h.pyrophoric) pyrophoricNames.add(h.name);
       }
-      if (h.peroxideClass) peroxideChecks(m, h.peroxideClass, run.concentratesOrHeatsToDryness === true, t, nowMs, acc);
-      const cmr = h.cmrCodes;
-      if (cmr.length > 0) {
-        acc.push({ code: "TL-H01", severity: "warning", component: h.name, score: 0, message: () => `${h.name} is ${cmrKinds(cmr)} (${cmr.join(", ")}).` });
+    }
+    for (const part of vial.parts ?? []) {
+      if (part.volumeFraction <= 0 || inVial.some((h) => h.key === `solvent:${part.record.id}`)) continue;
+      const sk = `${part.record.id}\u0001${concentrates}`;
+      let cached = solventCache.get(sk);
+      if (!cached) {
+        const item = solventMaterial(part.record);
+        cached = { profile: item.p, firings: ownFirings(item, concentrates, t, nowMs) };
+        solventCache.set(sk, cached);
+      }
+      for (const f of cached.firings) acc.push(f);
+      inVial.push(cached.profile);
+    }
+    // Water-reactive or pyrophoric with an aqueous or protic partner in the same vial.
+    for (const h of inVial) {
+      if (!(h.pyrophoric || h.waterReactive)) continue;
+      const wet = inVial.filter((w) => w.key !== h.key && (w.protic || w.aqueous));
+      if (wet.length > 0) {
+        acc.push({
+          code: "TL-R04",
+          severity: "blocking",
+          component: h.name,
+          score: wet.length,
+          message: () => `${h.name} is ${h.pyrophoric ? "pyrophoric" : "water-reactive"} and shares the vial with ${wet.map((w) => `${w.name} (${w.aqueous ? "aqueous" : "protic"})`).join(", ")}.`,
+        });
       }
     }
   });
@@ -515,13 +517,64 @@ function solventParts(
   return resolveSolventSystem(catalogue, shares, path);
 }
 
+interface CachedComponent {
+  c: PlanComponent;
+  concentrates: boolean;
+  profile: HazardProfile;
+  firings: Firing[];
+}
+
+/** A component seen before with the same hazards, dates and run treatment (compared field by field). */
+function findCached(cache: Map<string, CachedComponent[]>, c: PlanComponent, concentrates: boolean): CachedComponent | undefined {
+  const list = cache.get(c.name);
+  if (!list) return undefined;
+  for (const e of list) {
+    const d = e.c;
+    if (
+      e.concentrates === concentrates &&
+      d.pyrophoric === c.pyrophoric &&
+      d.waterReactive === c.waterReactive &&
+      d.peroxideClass === c.peroxideClass &&
+      d.protic === c.protic &&
+      d.aqueous === c.aqueous &&
+      d.openedOn === c.openedOn &&
+      d.peroxideTestedOn === c.peroxideTestedOn &&
+      d.receivedOn === c.receivedOn &&
+      d.ghs.length === c.ghs.length &&
+      d.ghs.every((g, i) => g === c.ghs[i])
+    ) {
+      return e;
+    }
+  }
+  return undefined;
+}
+
+/** The rules about a component itself: TL-R01, TL-R02, TL-X01–X03, TL-H01. */
+function ownFirings(m: Material, concentrates: boolean, t: LabThresholds, nowMs: number): Firing[] {
+  const h = m.p;
+  const out: Firing[] = [];
+  if (h.pyrophoric) {
+    out.push({ code: "TL-R01", severity: "warning", component: h.name, score: 0, message: () => `${h.name} is pyrophoric (H250): it catches fire on contact with air.${h.waterReactive ? " It also reacts with water." : ""}` });
+  }
+  if (h.waterReactive) {
+    const codes = h.waterCodes;
+    out.push({ code: "TL-R02", severity: "warning", component: h.name, score: 0, message: () => `${h.name} reacts with water and releases flammable gas${codes.length ? ` (${codes.join(", ")})` : ""}.` });
+  }
+  if (h.peroxideClass) peroxideChecks(m, h.peroxideClass, concentrates, t, nowMs, out);
+  const cmr = h.cmrCodes;
+  if (cmr.length > 0) {
+    out.push({ code: "TL-H01", severity: "warning", component: h.name, score: 0, message: () => `${h.name} is ${cmrKinds(cmr)} (${cmr.join(", ")}).` });
+  }
+  return out;
+}
+
 function peroxideChecks(
   m: Material,
   cls: PeroxideClass | "unclassified",
   concentrates: boolean,
   t: LabThresholds,
   nowMs: number,
-  acc: CautionAccumulator,
+  acc: { push(f: Firing): unknown },
 ): void {
   const months = intervalMonths(t, cls);
   const label = cls === "unclassified" ? "unclassified peroxide former (EUH019)" : `peroxide former, class ${cls}`;

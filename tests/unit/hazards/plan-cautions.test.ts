@@ -250,6 +250,14 @@ describe("TL-X01 / TL-X02 / TL-X03 peroxide formers", () => {
     expect(codes(one({ solvents: tol, components: [ipe("2026-08-01")] }))).toContain("TL-X01");
     expect(codes(one({ solvents: tol, components: [ipe("2026-10-01")] }))).not.toContain("TL-X01");
   });
+  it("judges each run's container on its own dates (computed in this test: run 1 old container, run 2 new one)", () => {
+    const r = plan([
+      run({ run: 1, solvents: tol, components: [thfComponent({ openedOn: "2025-11-01" })] }),
+      run({ run: 2, solvents: tol, components: [thfComponent({ openedOn: "2026-11-01" })] }),
+      run({ run: 3, solvents: tol, components: [thfComponent({ openedOn: "2025-11-01" })] }),
+    ]);
+    expect(r.cautions.find((c) => c.code === "TL-X01")?.runs).toEqual([1, 3]);
+  });
   it("an unopened container uses the 18-month unopened interval: received 19 months ago fires, 17 months is silent", () => {
     expect(codes(one({ solvents: tol, components: [thfComponent({ openedOn: null, receivedOn: "2025-05-01" })] }))).toContain("TL-X01");
     expect(codes(one({ solvents: tol, components: [thfComponent({ openedOn: null, receivedOn: "2025-07-01" })] }))).not.toContain("TL-X01");
