@@ -12,6 +12,7 @@ import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
 import { Amount, ExpiryDate } from "./bits";
+import { rational, toDecimalString } from "@/inventory/decimal";
 
 interface AvailabilityResult {
   lines: Array<{ requirement: number; chemicalId: string; chemicalName: string; picks: Array<{ containerId: string; barcode: string; amountBase: string; dimension: "mass" | "volume"; display: string }>; shortfall: { amount: number; unit: string } | null }>;
@@ -62,7 +63,7 @@ export function AlertsClient({ labSlug, canManage, initial, chemicals }: { labSl
   });
   async function reserve() {
     if (!result) return;
-    const lines = result.lines.flatMap((l) => l.picks.map((p) => ({ containerId: p.containerId, amount: p.dimension === "mass" ? p.amountBase : (Number(p.amountBase) / 1000).toString(), unit: p.dimension === "mass" ? "µg" : "µL" })));
+    const lines = result.lines.flatMap((l) => l.picks.map((p) => ({ containerId: p.containerId, amount: p.dimension === "mass" ? p.amountBase : toDecimalString(rational(BigInt(p.amountBase), 1000n), 3), unit: p.dimension === "mass" ? "µg" : "µL" })));
     const res = await postJson(`/api/labs/${labSlug}/reservations`, { planRef, lines, note: "Reserved from the availability check" });
     setMessage(res.ok ? { tone: "ok", text: `Reserved ${lines.length} amount${lines.length === 1 ? "" : "s"} for ${planRef}.` } : { tone: "blocks", text: res.error.message });
     if (res.ok) {

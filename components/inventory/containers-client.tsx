@@ -3,13 +3,14 @@
 import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
 import type { ContainerRow, ContainerQuery } from "@/lib/schemas/inventory";
-import { useContainers, type ContainerPage, type LocationRow } from "@/lib/hooks/use-inventory";
+import { useContainers, useLocations, type ContainerPage, type LocationRow } from "@/lib/hooks/use-inventory";
 import { DataTable, tableColumns } from "@/components/ui/data-table";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { Amount, ExpiryDate, HazardFlags, StatusBadge } from "./bits";
 import { ReceiveContainerForm } from "./receive-container-form";
+import { LocationForm } from "./location-form";
 
 const col = tableColumns<ContainerRow>();
 const SORTABLE = ["name", "barcode", "amount", "location", "expiresOn"] as const;
@@ -18,7 +19,7 @@ export function ContainersClient({
   labSlug,
   canManage,
   initial,
-  locations,
+  locations: initialLocations,
   chemicals,
   today,
 }: {
@@ -29,6 +30,8 @@ export function ContainersClient({
   chemicals: Array<{ id: string; name: string }>;
   today: string;
 }) {
+  const { data: locationData, mutate: refreshLocations } = useLocations(labSlug, initialLocations);
+  const locations = locationData?.locations ?? initialLocations;
   const [search, setSearch] = useState("");
   const [q, setQ] = useState("");
   const [status, setStatus] = useState<ContainerQuery["status"]>("all");
@@ -110,6 +113,9 @@ export function ContainersClient({
           <summary className="cursor-pointer text-sm font-medium">Receive a container</summary>
           <div className="mt-3">
             <ReceiveContainerForm labSlug={labSlug} chemicals={chemicals} locations={locations} onCreated={() => void mutate()} />
+            <div className="mt-4 border-t border-ink-line pt-3">
+              <LocationForm labSlug={labSlug} onCreated={() => void refreshLocations()} />
+            </div>
           </div>
         </details>
       )}
