@@ -9,7 +9,18 @@
 import { z } from "zod";
 import { factorSchema } from "../doe/factors";
 import { equipmentSchema, labThresholdsSchema } from "../hazards/thresholds";
-import { vesselTypeSchema } from "../hazards/vessels";
+import { vesselTypeSchema, type VesselType } from "../hazards/vessels";
+
+/**
+ * Parses `value` with `schema` inside a transform, reporting its issues at their own
+ * paths (a plain union would report only "invalid input" at the union's path).
+ */
+function refineWith<S extends z.ZodType>(value: unknown, schema: S, ctx: z.RefinementCtx): z.output<S> {
+  const r = schema.safeParse(value);
+  if (r.success) return r.data;
+  for (const issue of r.error.issues) ctx.addIssue({ code: "custom", path: issue.path.map((p) => (typeof p === "symbol" ? String(p) : p)), message: issue.message });
+  return z.NEVER;
+}
 
 /** Identifiers of components: used by bindings, stocks and the output. */
 export const COMPONENT_ID_PATTERN = /^[A-Za-z][A-Za-z0-9_-]*$/;
@@ -256,7 +267,10 @@ export type DesignRun = z.output<typeof designRunSchema>;
 export const planDesignSchema = z
   .looseObject({
     design: z.string().min(1).optional(),
-    runs: z.union([z.number().int().min(1), z.array(designRunSchema).min(1)]).optional(),
+    runs: z
+      .union([z.number(), z.array(z.unknown())])
+      .transform((v, ctx): number | DesignRun[] => refineWith(v, typeof v === "number" ? z.number().int().min(1) : z.array(designRunSchema).min(1), ctx))
+      .optional(),
   })
   .superRefine((d, ctx) => {
     if (d.design === undefined && !Array.isArray(d.runs)) {
@@ -292,7 +306,9 @@ export const planDocumentSchema = z
     factors: z.array(planFactorSchema).default([]),
     design: planDesignSchema,
     /** A vessel type, or the id of one of the default vessel types. */
-    vessel: z.union([z.string().min(1), vesselTypeSchema]),
+    vessel: z
+      .union([z.string().min(1), z.record(z.string(), z.unknown())])
+      .transform((v, ctx): string | VesselType => (typeof v === "string" ? v : refineWith(v, vesselTypeSchema, ctx))),
     thresholds: labThresholdsSchema,
     equipment: equipmentSchema,
     dispensing: dispensingSchema,

@@ -100,6 +100,16 @@ describe("invalid plan documents", () => {
     expect(e.issues[0]?.path).toBe("design.runs.0.natural.temperature");
   });
 
+  it("a bad vessel type and a bad design run are reported at their own fields", () => {
+    const plan = suzukiPlan({
+      design: { runs: [{ standardOrder: 0 }] },
+      vessel: { id: "v", name: "vial", totalVolumeMl: 4, workingMinMl: 0.5, workingMaxMl: 2, ratedBar: -3, maxFillFraction: 0.6, sealed: true, confirmWithSupplier: false },
+    });
+    const paths = errorOf(() => buildRunSheet(plan)).issues.map((i) => i.path);
+    expect(paths).toContain("vessel.ratedBar");
+    expect(paths).toContain("design.runs.0.standardOrder");
+  });
+
   it("a unit that does not fit the binding is refused", () => {
     const plan = suzukiPlan({
       factors: [{ name: "temperature", low: 60, high: 100, unit: "bar", binding: { kind: "temperature" } }],
