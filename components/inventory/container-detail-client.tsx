@@ -42,12 +42,12 @@ export function ContainerDetailClient({ labSlug, canManage, initial, locations, 
     ledgerCol.accessor("actor", { header: "Who", cell: (i) => i.getValue() ?? "system" }),
   ]);
   const resColumns = resCol.columns([
-    resCol.accessor("planRef", { header: "Plan", cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
+    resCol.accessor("planRef", { header: "Plan", cell: (i) => <span className="whitespace-nowrap font-mono text-xs">{i.getValue()}</span> }),
     resCol.accessor("amount", { header: "Reserved", cell: (i) => <Amount value={i.getValue()} /> }),
     resCol.accessor("consumed", { header: "Used", cell: (i) => <Amount value={i.getValue()} /> }),
     resCol.accessor("status", { header: "Status" }),
     resCol.accessor("reservedBy", { header: "By" }),
-    resCol.accessor("reservedAt", { header: "When", cell: (i) => <span className="num">{i.getValue().slice(0, 10)}</span> }),
+    resCol.accessor("reservedAt", { header: "When", cell: (i) => <span className="num whitespace-nowrap">{i.getValue().slice(0, 10)}</span> }),
     resCol.display({ id: "actions", header: "", cell: ({ row }) => (canManage && row.original.status === "held" ? <ReservationActions labSlug={labSlug} reservation={row.original} dimension={c.amount.dimension} onDone={() => void mutate()} /> : null) }),
   ]);
 

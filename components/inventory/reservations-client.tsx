@@ -19,14 +19,14 @@ export function ReservationsClient({ labSlug, canManage, initial }: { labSlug: s
   const { data, error, mutate } = useReservations(labSlug, status, status === "held" ? initial : undefined);
   const rows = data?.reservations ?? [];
   const columns = col.columns([
-    col.accessor("planRef", { header: "Plan", cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
+    col.accessor("planRef", { header: "Plan", cell: (i) => <span className="whitespace-nowrap font-mono text-xs">{i.getValue()}</span> }),
     col.accessor("barcode", { header: "Container", cell: (i) => <Link className="font-mono text-xs" href={`/labs/${labSlug}/inventory/containers/${i.row.original.containerId}`}>{i.getValue()}</Link> }),
     col.accessor("chemicalName", { header: "Chemical" }),
     col.accessor("amount", { header: "Reserved", cell: (i) => <Amount value={i.getValue()} /> }),
     col.accessor("consumed", { header: "Used", cell: (i) => <Amount value={i.getValue()} /> }),
     col.accessor("status", { header: "Status" }),
     col.accessor("reservedBy", { header: "By" }),
-    col.accessor("reservedAt", { header: "Since", cell: (i) => <span className="num">{i.getValue().slice(0, 10)}</span> }),
+    col.accessor("reservedAt", { header: "Since", cell: (i) => <span className="num whitespace-nowrap">{i.getValue().slice(0, 10)}</span> }),
     col.display({
       id: "actions",
       header: "",
