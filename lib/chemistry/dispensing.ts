@@ -402,7 +402,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
   }));
   for (let ri = 0; ri < nRuns; ri++) {
     const r = runs[ri]!;
-    const items: Array<{ rank: number; order: number; d: Omit<Dispense, "step"> }> = [];
+    const items: Array<{ rank: number; order: number; d: Dispense }> = [];
     const fromStocks: Record<string, number> = {};
     groups.forEach((g, gi) => {
       const v = g.basis[ri]! / g.k;
@@ -412,6 +412,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
         rank: facts.rank,
         order: facts.order,
         d: {
+          step: 0,
           kind: g.kind,
           source: g.key,
           name: facts.name,
@@ -429,7 +430,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
         items.push({
           rank: info.component.addOrder ?? defaultRank(info, m),
           order: info.index,
-          d: { kind: "solid", source: info.component.id, name: info.component.name, volumeUl: null, massMg: a.massMg, delivers: [{ id: a.id, mmol: a.mmol }], solvent: null },
+          d: { step: 0, kind: "solid", source: info.component.id, name: info.component.name, volumeUl: null, massMg: a.massMg, delivers: [{ id: a.id, mmol: a.mmol }], solvent: null },
         });
         if (d.minWeighMassMg > 0 && (a.massMg ?? 0) < d.minWeighMassMg) {
           notes.add(
@@ -450,7 +451,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
         items.push({
           rank: info.component.addOrder ?? defaultRank(info, m),
           order: info.index,
-          d: { kind: "neat", source: info.component.id, name: info.component.name, volumeUl: a.volumeUl, massMg: a.massMg, delivers: [{ id: a.id, mmol: a.mmol }], solvent: null },
+          d: { step: 0, kind: "neat", source: info.component.id, name: info.component.name, volumeUl: a.volumeUl, massMg: a.massMg, delivers: [{ id: a.id, mmol: a.mmol }], solvent: null },
         });
         if ((a.volumeUl ?? 0) < minPip * (1 - 1e-9)) {
           notes.add(
@@ -480,7 +481,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
         items.push({
           rank: topUpRank,
           order: si,
-          d: { kind: "solvent", source: s.name, name: `${s.name} (top-up)`, volumeUl: top, massMg: null, delivers: [], solvent: { name: s.name, volumeUl: top } },
+          d: { step: 0, kind: "solvent", source: s.name, name: `${s.name} (top-up)`, volumeUl: top, massMg: null, delivers: [], solvent: { name: s.name, volumeUl: top } },
         });
         if (top < minPip * (1 - 1e-9)) {
           notes.add(
@@ -496,7 +497,12 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
       }
     });
     items.sort((a, b) => a.rank - b.rank || a.order - b.order);
-    dispenses.push(items.map((it, i) => ({ step: i + 1, ...it.d })));
+    dispenses.push(
+      items.map((it, i) => {
+        it.d.step = i + 1;
+        return it.d;
+      }),
+    );
     solventVolumesUl.push(volumes);
     topUpsUl.push(tops);
   }
