@@ -524,6 +524,12 @@ interface CachedComponent {
   firings: Firing[];
 }
 
+function sameStrings(a: readonly string[], b: readonly string[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}
+
 /** A component seen before with the same hazards, dates and run treatment (compared field by field). */
 function findCached(cache: Map<string, CachedComponent[]>, c: PlanComponent, concentrates: boolean): CachedComponent | undefined {
   const list = cache.get(c.name);
@@ -540,8 +546,7 @@ function findCached(cache: Map<string, CachedComponent[]>, c: PlanComponent, con
       d.openedOn === c.openedOn &&
       d.peroxideTestedOn === c.peroxideTestedOn &&
       d.receivedOn === c.receivedOn &&
-      d.ghs.length === c.ghs.length &&
-      d.ghs.every((g, i) => g === c.ghs[i])
+      sameStrings(d.ghs, c.ghs)
     ) {
       return e;
     }

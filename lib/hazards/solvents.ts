@@ -6,7 +6,7 @@
 import { z } from "zod";
 import { AppError, zodIssues } from "../errors/app-error";
 import { BUILT_IN_SOLVENTS } from "./solvent-data";
-import { solventRecordSchema, type SolventRecord } from "./solvent-record";
+import { solventRecordSchema, type SolventRecord, type SolventRecordInput } from "./solvent-record";
 
 /** A lookup key: lower case, Unicode dashes as "-", without white space. */
 export function solventKey(name: string): string {
@@ -83,6 +83,6 @@ export function solventCatalogue(labSolvents?: unknown, path = "labSolvents"): S
 }
 
 /** Finds a solvent by name, synonym or CAS number among the built-in and the given lab records. */
-export function findSolvent(nameOrCas: string, labSolvents?: unknown): SolventRecord | undefined {
+export function findSolvent(nameOrCas: string, labSolvents?: readonly SolventRecordInput[]): SolventRecord | undefined {
   return solventCatalogue(labSolvents).find(nameOrCas);
 }

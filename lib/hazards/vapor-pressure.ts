@@ -13,7 +13,7 @@
  */
 import { AppError } from "../errors/app-error";
 import { IF97_TMAX_K, IF97_TMIN_K, if97SaturationPressureBar } from "./iapws-if97";
-import type { SolventRecord, SourceTag } from "./solvent-record";
+import type { SolventRecord, SolventRecordInput, SourceTag } from "./solvent-record";
 import { solventCatalogue } from "./solvents";
 
 export type VaporMethod = "DIPPR-101" | "Antoine" | "IAPWS-IF97" | "estimate";
@@ -252,7 +252,11 @@ export function mixtureVaporPressure(
  * @throws AppError invalid_input at `solvent` (unknown name), `temperatureC` (below
  * absolute zero, above the critical temperature) or `labSolvents.…` (a bad record).
  */
-export function vaporPressure(solvent: string, temperatureC: number, labSolvents?: unknown): VaporPressureResult {
+export function vaporPressure(
+  solvent: string,
+  temperatureC: number,
+  labSolvents?: readonly SolventRecordInput[],
+): VaporPressureResult {
   const record = solventCatalogue(labSolvents).resolve(solvent, "solvent");
   if (!Number.isFinite(temperatureC) || temperatureC <= -ZERO_C_IN_K) {
     throw AppError.field("temperatureC", "temperature must be above absolute zero (−273.15 °C)");

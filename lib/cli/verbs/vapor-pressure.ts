@@ -5,12 +5,13 @@
  */
 import { z } from "zod";
 import { parseOrThrow } from "../../errors/app-error";
+import { solventRecordSchema } from "../../hazards/solvent-record";
 import { vaporPressure } from "../../hazards/vapor-pressure";
 
 const inputSchema = z.object({
   solvent: z.string().min(1).max(200),
   temperatureC: z.number().gt(-273.15, "temperature must be above absolute zero (−273.15 °C)").max(3000),
-  labSolvents: z.array(z.unknown()).max(500).optional(),
+  labSolvents: z.array(solventRecordSchema).max(500).optional(),
 });
 
 export function run(input: unknown): unknown {

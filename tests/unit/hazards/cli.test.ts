@@ -32,6 +32,11 @@ describe("vapor-pressure verb", () => {
     expect(r.status).toBe(2);
     expect(r.body.error?.issues.map((i) => i.path)).toEqual(["solvent"]);
   });
+  it("an invalid lab solvent record exits 2 with the field's path", () => {
+    const r = cli("vapor-pressure", { solvent: "x", temperatureC: 50, labSolvents: [{ id: "x", name: "x" }] });
+    expect(r.status).toBe(2);
+    expect(r.body.error?.issues.map((i) => i.path)).toContain("labSolvents.0.densityGPerMl");
+  });
   it("−300 °C exits 2 with path temperatureC", () => {
     const r = cli("vapor-pressure", { solvent: "toluene", temperatureC: -300 });
     expect(r.status).toBe(2);

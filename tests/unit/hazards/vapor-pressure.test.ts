@@ -11,6 +11,7 @@ import {
   solventVaporPressure,
   troutonEstimateBar,
   vaporPressure,
+  type SolventRecordInput,
 } from "@/lib/hazards";
 
 function relErr(actual: number, expected: number): number {
@@ -132,7 +133,7 @@ describe("Clausius–Clapeyron with Trouton's rule (estimate)", () => {
     expect(r.source).toMatch(/Trouton/);
   });
   it("is refused for a protic lab solvent without correlations (REFERENCE.md §1: not for water or alcohols)", () => {
-    const lab = [
+    const lab: SolventRecordInput[] = [
       {
         id: "1-butanol-lab",
         name: "1-butanol (lab)",
@@ -189,7 +190,7 @@ describe("solvent records", () => {
     expect(c.find("toluene")?.peroxideClass).toBeNull();
   });
   it("accept a lab's own solvent, which is then used for vapour pressure", () => {
-    const lab = [
+    const lab: SolventRecordInput[] = [
       {
         id: "cpme",
         name: "cyclopentyl methyl ether",
