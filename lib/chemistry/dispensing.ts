@@ -475,6 +475,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
       const want = budget(ri, s.name);
       let top = want - (fromStocks[s.name] ?? 0);
       if (top < 0 && top > -1e-6 * Math.max(want, 1)) top = 0;
+      if (top < 0) throw new AppError("internal", `Negative ${s.name} top-up (${top} µL) in run ${r.run}: the stock plan is inconsistent.`);
       tops[s.name] = top;
       volumes[s.name] = want;
       if (top > 0) {
