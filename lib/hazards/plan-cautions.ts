@@ -146,7 +146,7 @@ class CautionAccumulator {
     return [...this.entries.values()]
       .flatMap((m) => [...m.values()])
       .map((e): Caution => {
-        const runs = [...new Set(e.runs)].sort((a, b) => a - b);
+        const runs = sortedUnique(e.runs);
         const where = runs.length > 1 && e.worstScore > e.leastScore ? ` Worst case: run ${e.worstRun} of ${runs.length} runs.` : "";
         return {
           code: e.code,
@@ -171,6 +171,14 @@ function cmrKinds(cmr: readonly string[]): string {
     .join(", ");
 }
 
+/** The run numbers in ascending order without repeats (usually already so: no copy made). */
+function sortedUnique(runs: number[]): number[] {
+  let ordered = true;
+  for (let i = 1; i < runs.length && ordered; i++) ordered = runs[i - 1]! < runs[i]!;
+  if (ordered) return runs;
+  return [...new Set(runs)].sort((a, b) => a - b);
+}
+
 /** GHS statements (H250, H360FD, …) match by their three-digit stem. */
 function hasStatement(ghs: readonly string[], stems: readonly string[]): string[] {
   return ghs.filter((g) => stems.some((s) => g.startsWith(s)));
@@ -180,6 +188,8 @@ function hasStatement(ghs: readonly string[], stems: readonly string[]): string[
 interface HazardProfile {
   name: string;
   key: string;
+  /** The solvent record it is, if any. */
+  record: SolventRecord | undefined;
   ghs: string[];
   pyrophoric: boolean;
   waterReactive: boolean;
@@ -213,6 +223,7 @@ function profileOf(
   return {
     name,
     key: record ? `solvent:${record.id}` : `name:${name.trim().toLowerCase()}`,
+    record,
     ghs,
     pyrophoric: flags.pyrophoric === true || hasStatement(ghs, ["H250"]).length > 0,
     waterReactive: flags.waterReactive === true || waterCodes.length > 0,
@@ -348,7 +359,7 @@ export function evaluatePlanCautions(input: PlanCautionInput): PlanCautionReport
       }
     }
     for (const part of vial.parts ?? []) {
-      if (part.volumeFraction <= 0 || inVial.some((h) => h.key === `solvent:${part.record.id}`)) continue;
+      if (part.volumeFraction <= 0 || listed(inVial, part.record)) continue;
       const sk = `${part.record.id}\u0001${concentrates}`;
       let cached = solventCache.get(sk);
       if (!cached) {
@@ -522,6 +533,12 @@ interface CachedComponent {
   concentrates: boolean;
   profile: HazardProfile;
   firings: Firing[];
+}
+
+/** Whether a solvent record is already among the vial's materials. */
+function listed(inVial: readonly HazardProfile[], r: SolventRecord): boolean {
+  for (const h of inVial) if (h.record === r) return true;
+  return false;
 }
 
 function sameStrings(a: readonly string[], b: readonly string[]): boolean {
