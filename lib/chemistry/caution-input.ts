@@ -53,29 +53,34 @@ export interface CautionInput {
  */
 export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionInput {
   const comps = doc.recipe.components;
+  // The hazard profile of each component, the same in every run. Flags only as declared
+  // (or implied by the GHS codes): the hazard engine falls back to its solvent records and
+  // the GHS codes for what is not said here.
+  const profiles: CautionComponent[] = comps.map((c) => {
+    const ghs = new Set(c.hazards.ghs);
+    const out: CautionComponent = {
+      name: c.name,
+      ghs: [...ghs],
+      pyrophoric: c.hazards.pyrophoric ?? ghs.has("H250"),
+      waterReactive: c.hazards.waterReactive ?? (ghs.has("H260") || ghs.has("H261") || ghs.has("EUH014")),
+      openedOn: c.hazards.openedOn ?? null,
+      peroxideTestedOn: c.hazards.peroxideTestedOn ?? null,
+    };
+    if (c.hazards.peroxideClass !== undefined) out.peroxideClass = c.hazards.peroxideClass;
+    if (c.hazards.protic !== undefined) out.protic = c.hazards.protic;
+    if (c.hazards.aqueous !== undefined) out.aqueous = c.hazards.aqueous;
+    return out;
+  });
   return {
     vessel: sheet.vessel,
     thresholds: doc.thresholds,
     equipment: { blockMaxC: doc.equipment.blockMaxC, coolingMinC: doc.equipment.coolingMinC },
     ...(doc.now !== undefined ? { now: doc.now } : {}),
     runs: sheet.runs.map((r) => {
-      const components: CautionComponent[] = comps.map((c) => {
-        const ghs = new Set(c.hazards.ghs);
-        const row = r.components.find((x) => x.id === c.id)!;
+      const components: CautionComponent[] = comps.map((c, ci) => {
+        const row = r.components[ci]!;
         const carrier = r.dispense.find((d) => d.source === row.source);
-        // Flags only as declared (or implied by the GHS codes): the hazard engine falls back
-        // to its solvent records and the GHS codes for what is not said here.
-        const out: CautionComponent = {
-          name: c.name,
-          ghs: [...ghs],
-          pyrophoric: c.hazards.pyrophoric ?? ghs.has("H250"),
-          waterReactive: c.hazards.waterReactive ?? (ghs.has("H260") || ghs.has("H261") || ghs.has("EUH014")),
-          openedOn: c.hazards.openedOn ?? null,
-          peroxideTestedOn: c.hazards.peroxideTestedOn ?? null,
-        };
-        if (c.hazards.peroxideClass !== undefined) out.peroxideClass = c.hazards.peroxideClass;
-        if (c.hazards.protic !== undefined) out.protic = c.hazards.protic;
-        if (c.hazards.aqueous !== undefined) out.aqueous = c.hazards.aqueous;
+        const out: CautionComponent = { ...profiles[ci]! };
         if (carrier && carrier.volumeUl !== null && carrier.kind !== "solid") out.volumeUl = carrier.volumeUl;
         return out;
       });

@@ -10,7 +10,8 @@ import { expectStockInvariants } from "./invariants";
 // the screening plan either give a run sheet that satisfies every stock-planning
 // invariant, or a clear infeasible / invalid-input AppError — never an internal error.
 describe("random plans (seeded)", () => {
-  it("are planned correctly or refused clearly, 60 cases", () => {
+  // About 1 s alone; allow for a loaded machine.
+  it("are planned correctly or refused clearly, 60 cases", { timeout: 60_000 }, () => {
     const rng = seedrandom("tareline-chemistry-7");
     const u = (lo: number, hi: number) => lo + (hi - lo) * rng();
     let planned = 0;
