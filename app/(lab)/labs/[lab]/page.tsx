@@ -25,7 +25,7 @@ export default async function LabOverviewPage({ params }: { params: Promise<{ la
         <h2 className="mb-2">What you can open</h2>
         {sections.length === 0 ? (
           <p className="text-sm text-ink-soft">
-            Studies, plans and inventory arrive in the next releases. Your role can already see this overview; ask your lab admin if you need more.
+            Your role can see this overview. Studies and plans arrive in a later release; ask your lab admin if you need more access.
           </p>
         ) : (
           <ul className="list-inside list-disc text-sm">
