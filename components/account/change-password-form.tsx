@@ -6,7 +6,7 @@ import { useState } from "react";
 import { changePasswordSchema, type ChangePasswordInput } from "@/lib/schemas/account";
 import { postJson } from "@/lib/client/fetch-json";
 import { Button } from "@/components/ui/button";
-import { Field, inputClass } from "@/components/ui/field";
+import { TextField } from "@/components/ui/text-field";
 import { Banner } from "@/components/ui/banner";
 
 export function ChangePasswordForm() {
@@ -26,15 +26,9 @@ export function ChangePasswordForm() {
   return (
     <form onSubmit={onSubmit} className="flex max-w-sm flex-col gap-4" noValidate>
       {message && <Banner tone={message.tone} testId="password-result">{message.text}</Banner>}
-      <Field label="Current password" htmlFor="currentPassword" error={formState.errors.currentPassword?.message}>
-        <input id="currentPassword" type="password" autoComplete="current-password" className={inputClass} {...register("currentPassword")} />
-      </Field>
-      <Field label="New password" htmlFor="newPassword" hint="At least 10 characters." error={formState.errors.newPassword?.message}>
-        <input id="newPassword" type="password" autoComplete="new-password" className={inputClass} {...register("newPassword")} />
-      </Field>
-      <Field label="Repeat the new password" htmlFor="confirmPassword" error={formState.errors.confirmPassword?.message}>
-        <input id="confirmPassword" type="password" autoComplete="new-password" className={inputClass} {...register("confirmPassword")} />
-      </Field>
+      <TextField register={register} name="currentPassword" label="Current password" type="password" autoComplete="current-password" error={formState.errors.currentPassword?.message} />
+      <TextField register={register} name="newPassword" label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={formState.errors.newPassword?.message} />
+      <TextField register={register} name="confirmPassword" label="Repeat the new password" type="password" autoComplete="new-password" error={formState.errors.confirmPassword?.message} />
       <Button type="submit" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Saving…" : "Change password"}
       </Button>

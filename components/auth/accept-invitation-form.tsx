@@ -6,7 +6,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { acceptInvitationSchema, type AcceptInvitationInput } from "@/lib/schemas/account";
 import { Button } from "@/components/ui/button";
-import { Field, inputClass } from "@/components/ui/field";
+import { TextField } from "@/components/ui/text-field";
 import { Banner } from "@/components/ui/banner";
 import { postJson } from "@/lib/client/fetch-json";
 
@@ -31,15 +31,9 @@ export function AcceptInvitationForm({ token, email }: { token: string; email: s
   return (
     <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
       {error && <Banner tone="blocks">{error}</Banner>}
-      <Field label="Your name" htmlFor="name" error={formState.errors.name?.message}>
-        <input id="name" autoComplete="name" className={inputClass} {...register("name")} />
-      </Field>
-      <Field label="Choose a password" htmlFor="password" hint="At least 10 characters." error={formState.errors.password?.message}>
-        <input id="password" type="password" autoComplete="new-password" className={inputClass} {...register("password")} />
-      </Field>
-      <Field label="Repeat the password" htmlFor="confirmPassword" error={formState.errors.confirmPassword?.message}>
-        <input id="confirmPassword" type="password" autoComplete="new-password" className={inputClass} {...register("confirmPassword")} />
-      </Field>
+      <TextField register={register} name="name" label="Your name" autoComplete="name" error={formState.errors.name?.message} />
+      <TextField register={register} name="password" label="Choose a password" type="password" autoComplete="new-password" hint="At least 10 characters." error={formState.errors.password?.message} />
+      <TextField register={register} name="confirmPassword" label="Repeat the password" type="password" autoComplete="new-password" error={formState.errors.confirmPassword?.message} />
       <Button type="submit" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Joining…" : "Set password and join"}
       </Button>

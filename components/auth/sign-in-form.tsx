@@ -7,7 +7,7 @@ import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { signInSchema, type SignInInput } from "@/lib/schemas/account";
 import { Button } from "@/components/ui/button";
-import { Field, inputClass } from "@/components/ui/field";
+import { TextField } from "@/components/ui/text-field";
 import { Banner } from "@/components/ui/banner";
 
 export function SignInForm() {
@@ -31,12 +31,8 @@ export function SignInForm() {
   return (
     <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
       {error && <Banner tone="blocks" testId="sign-in-error">{error}</Banner>}
-      <Field label="E-mail" htmlFor="email" error={formState.errors.email?.message}>
-        <input id="email" type="email" autoComplete="username" className={inputClass} {...register("email")} />
-      </Field>
-      <Field label="Password" htmlFor="password" error={formState.errors.password?.message}>
-        <input id="password" type="password" autoComplete="current-password" className={inputClass} {...register("password")} />
-      </Field>
+      <TextField register={register} name="email" label="E-mail" type="email" autoComplete="username" error={formState.errors.email?.message} />
+      <TextField register={register} name="password" label="Password" type="password" autoComplete="current-password" error={formState.errors.password?.message} />
       <Button type="submit" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Signing in…" : "Sign in"}
       </Button>

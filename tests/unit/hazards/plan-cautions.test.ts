@@ -1,5 +1,5 @@
+import { invalidPaths } from "../../support/invalid-paths";
 import { describe, expect, it } from "vitest";
-import { AppError } from "@/lib/errors/app-error";
 import {
   DEFAULT_EQUIPMENT,
   DEFAULT_LAB_THRESHOLDS,
@@ -39,15 +39,6 @@ const one = (over: Partial<Run> = {}, planOver: Partial<PlanCautionInput> = {}) 
 
 const nBuLi: Component = { name: "n-butyllithium 2.5 M in hexanes", ghs: ["H225", "H250", "H261", "H314"], volumeUl: 100 }; // REFERENCE.md §4 typical reagents [M]
 
-function invalidPaths(fn: () => unknown): string[] {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof AppError && e.code === "invalid_input") return e.issues.map((i) => i.path);
-    throw e;
-  }
-  throw new Error("expected an invalid_input AppError");
-}
 
 describe("baseline", () => {
   it("a confirmed vial of DMSO at 25 °C gives no caution, is releasable and needs no sign-off", () => {

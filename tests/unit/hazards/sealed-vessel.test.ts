@@ -1,19 +1,10 @@
+import { invalidPaths } from "../../support/invalid-paths";
 import { describe, expect, it } from "vitest";
-import { AppError } from "@/lib/errors/app-error";
 import { R_L_BAR_PER_MOL_K, builtInCatalogue, estimateSealedVessel, vaporPressure, vesselPressure } from "@/lib/hazards";
 
 const cat = builtInCatalogue();
 const part = (name: string, volumeFraction: number) => ({ record: cat.resolve(name, "x"), volumeFraction });
 
-function invalidPaths(fn: () => unknown): string[] {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof AppError && e.code === "invalid_input") return e.issues.map((i) => i.path);
-    throw e;
-  }
-  throw new Error("expected an invalid_input AppError");
-}
 
 describe("sealed-vessel pressure (REFERENCE.md §2 model)", () => {
   it("THF sealed at 1 atm and 25 °C, half full, heated to 120 °C: ≈ 5.6 bar absolute within 10 % (REFERENCE.md §2 example [C])", () => {

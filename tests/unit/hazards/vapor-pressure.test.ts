@@ -1,6 +1,6 @@
+import { invalidPaths } from "../../support/invalid-paths";
 import { describe, expect, it } from "vitest";
 import { MF } from "mf-parser";
-import { AppError } from "@/lib/errors/app-error";
 import {
   BUILT_IN_SOLVENTS,
   boilingPointC,
@@ -18,15 +18,6 @@ function relErr(actual: number, expected: number): number {
   return Math.abs(actual / expected - 1);
 }
 
-function invalidPaths(fn: () => unknown): string[] {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof AppError && e.code === "invalid_input") return e.issues.map((i) => i.path);
-    throw e;
-  }
-  throw new Error("expected an invalid_input AppError");
-}
 
 describe("IAPWS-IF97 region 4 (water saturation line)", () => {
   // REFERENCE.md §1 check points [C, IF97]; tolerance: half a unit in the last digit given.
