@@ -15,20 +15,21 @@ module.exports = {
       created_at: { type: DataTypes.DATE, allowNull: false, defaultValue: Sequelize.literal("now()") },
     });
     await queryInterface.addIndex("audit_log", ["lab_id", "created_at"], { name: "audit_log_lab_time" });
-    // Append-only: the database itself refuses to change or delete an entry.
+    // Append-only: the database itself refuses to change or delete an entry. The function is
+    // generic (it names the table), so every append-only table uses it with two triggers.
     await queryInterface.sequelize.query(`
-      CREATE FUNCTION audit_log_append_only() RETURNS trigger LANGUAGE plpgsql AS $$
+      CREATE FUNCTION refuse_append_only_change() RETURNS trigger LANGUAGE plpgsql AS $$
       BEGIN
-        RAISE EXCEPTION 'audit_log is append-only (% refused)', TG_OP;
+        RAISE EXCEPTION '% is append-only (% refused)', TG_TABLE_NAME, TG_OP;
       END $$;
       CREATE TRIGGER audit_log_no_update BEFORE UPDATE OR DELETE ON audit_log
-        FOR EACH ROW EXECUTE FUNCTION audit_log_append_only();
+        FOR EACH ROW EXECUTE FUNCTION refuse_append_only_change();
       CREATE TRIGGER audit_log_no_truncate BEFORE TRUNCATE ON audit_log
-        FOR EACH STATEMENT EXECUTE FUNCTION audit_log_append_only();
+        FOR EACH STATEMENT EXECUTE FUNCTION refuse_append_only_change();
     `);
   },
   async down(queryInterface) {
     await queryInterface.dropTable("audit_log");
-    await queryInterface.sequelize.query("DROP FUNCTION IF EXISTS audit_log_append_only()");
+    await queryInterface.sequelize.query("DROP FUNCTION IF EXISTS refuse_append_only_change()");
   },
 };

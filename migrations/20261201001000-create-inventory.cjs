@@ -138,19 +138,15 @@ module.exports = {
     await q(`
       ALTER TABLE stock_ledger ADD CONSTRAINT stock_ledger_kind CHECK (kind IN ('received','imported','adjusted','reserved','consumed','released','status'));
       ALTER TABLE stock_ledger ADD CONSTRAINT stock_ledger_balance CHECK (balance_base >= 0);
-      CREATE FUNCTION stock_ledger_append_only() RETURNS trigger LANGUAGE plpgsql AS $$
-      BEGIN
-        RAISE EXCEPTION 'stock_ledger is append-only (% refused)', TG_OP;
-      END $$;
+      -- refuse_append_only_change() comes from the audit-log migration.
       CREATE TRIGGER stock_ledger_no_update BEFORE UPDATE OR DELETE ON stock_ledger
-        FOR EACH ROW EXECUTE FUNCTION stock_ledger_append_only();
+        FOR EACH ROW EXECUTE FUNCTION refuse_append_only_change();
       CREATE TRIGGER stock_ledger_no_truncate BEFORE TRUNCATE ON stock_ledger
-        FOR EACH STATEMENT EXECUTE FUNCTION stock_ledger_append_only();
+        FOR EACH STATEMENT EXECUTE FUNCTION refuse_append_only_change();
     `);
   },
   async down(queryInterface) {
     await queryInterface.dropTable("stock_ledger");
-    await queryInterface.sequelize.query("DROP FUNCTION IF EXISTS stock_ledger_append_only()");
     await queryInterface.dropTable("reservations");
     await queryInterface.dropTable("containers");
     await queryInterface.dropTable("safety_data_sheets");

@@ -1,4 +1,5 @@
 import "server-only";
+import { cache } from "react";
 import { AppError } from "@/lib/errors/app-error";
 import { Lab, Membership } from "@/lib/server/models";
 import { can, type Permission } from "./permissions";
@@ -17,16 +18,26 @@ export interface LabAccess {
  * their role lacks `permission`.
  */
 export async function authorizeLab(opts: { userId: string; labSlug: string; permission?: Permission }): Promise<LabAccess> {
-  const membership = await Membership.findOne({
-    where: { userId: opts.userId },
-    include: [{ model: Lab, as: "lab", where: { slug: opts.labSlug }, required: true }],
-  });
-  if (!membership?.lab) throw new AppError("not_found", `No lab "${opts.labSlug}" among your labs.`);
-  if (opts.permission && !can(membership.role, opts.permission)) {
-    throw new AppError("forbidden", `Your role in ${membership.lab.name} does not allow this (${opts.permission}).`);
+  const access = await membershipAccess(opts.userId, opts.labSlug);
+  if (opts.permission && !can(access.role, opts.permission)) {
+    throw new AppError("forbidden", `Your role in ${access.lab.name} does not allow this (${opts.permission}).`);
   }
-  return { lab: { id: membership.lab.id, slug: membership.lab.slug, name: membership.lab.name }, role: membership.role, userId: opts.userId };
+  return access;
 }
+
+/**
+ * The membership lookup behind authorizeLab, memoised per request (React `cache`): a lab
+ * layout and its page ask for the same lab and share one query. Outside a server render
+ * it simply runs.
+ */
+const membershipAccess = cache(async (userId: string, labSlug: string): Promise<LabAccess> => {
+  const membership = await Membership.findOne({
+    where: { userId },
+    include: [{ model: Lab, as: "lab", where: { slug: labSlug }, required: true }],
+  });
+  if (!membership?.lab) throw new AppError("not_found", `No lab "${labSlug}" among your labs.`);
+  return { lab: { id: membership.lab.id, slug: membership.lab.slug, name: membership.lab.name }, role: membership.role, userId };
+});
 
 /** Session check plus `authorizeLab`: what every lab page, route handler and server action calls. */
 export async function requireLabAccess(labSlug: string, permission?: Permission): Promise<LabAccess & { user: SessionUser }> {
