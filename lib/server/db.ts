@@ -33,3 +33,13 @@ export function db(): Sequelize {
 export function transaction<T>(fn: (t: Transaction) => Promise<T>): Promise<T> {
   return db().transaction(fn);
 }
+
+/**
+ * Runs `fn` in the caller's transaction `t` when one is given (the caller commits or rolls
+ * back the whole flow), or in a transaction of its own otherwise. Every domain operation
+ * takes the caller's transaction as its optional last parameter and runs through this, so
+ * flows such as "release a plan and reserve its stock" commit or roll back as one.
+ */
+export function inTransaction<T>(t: Transaction | undefined, fn: (t: Transaction) => Promise<T>): Promise<T> {
+  return t ? fn(t) : db().transaction(fn);
+}
