@@ -20,7 +20,7 @@ for (const file of files) {
     const r = runCase(c);
     const verdict = r.medianMs <= r.targetMs ? "meets target" : "OVER TARGET";
     console.log(
-      `${r.name} | ${r.medianMs.toFixed(2)} | ${r.minMs.toFixed(2)}–${r.maxMs.toFixed(2)} | ${r.targetMs} | ${r.repeat} | ${verdict}`,
+      `${r.name} | ${r.medianMs.toFixed(2)} | ${r.minMs.toFixed(2)}–${r.maxMs.toFixed(2)} | ${r.targetMs} | ${r.repeat} | ${verdict}${r.note ? ` | ${r.note}` : ""}`,
     );
   }
 }

@@ -2,7 +2,7 @@
  * The design engine's public API (interfaces.md): design input schema, generation,
  * factor coding, and the building blocks (fractions, CCD, Box–Behnken, D-optimal).
  */
-export { designInputSchema, givenRunSchema, DESIGN_KINDS, type DesignInput, type DesignInputRaw, type DesignKind } from "./design-schema";
+export { designInputSchema, givenRunSchema, plannedRunCount, DESIGN_KINDS, DESIGN_LIMITS, type DesignInput, type DesignInputRaw, type DesignKind } from "./design-schema";
 export { generateDesign, type DesignOutput, type DesignRun, type PointType, type DOptimalSummary } from "./generate-design";
 export {
   factorSchema,
@@ -50,4 +50,22 @@ export {
   type LinearConstraint,
   type ConstraintInput,
 } from "./constraints";
-export { fedorovExchange, gridCandidates, candidateMatrix, informationMatrix, logDetSpd, inverseSpd, cholesky, type DOptimalOptions, type DOptimalResult } from "./d-optimal";
+export {
+  fedorovExchange,
+  dOptimalWorkCheck,
+  gridCandidates,
+  gridCandidateCount,
+  candidateMatrix,
+  informationMatrix,
+  logDetSpd,
+  inverseSpd,
+  cholesky,
+  D_OPTIMAL_LIMITS,
+  DEFAULT_STARTS,
+  DEFAULT_TABU_STEPS,
+  DEFAULT_MAX_PASSES,
+  type DOptimalOptions,
+  type DOptimalResult,
+} from "./d-optimal";
+export { dOptimalPoints, isRemoved, type PointVerdict, type DOptimalPointsOptions } from "./d-optimal-design";
+export { designLogDet, dEfficiency, relativeDEfficiency, relativeDEfficiencyOfRuns, type NaturalRun } from "./d-efficiency";
