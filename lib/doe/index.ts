@@ -69,3 +69,13 @@ export {
 } from "./d-optimal";
 export { dOptimalPoints, isRemoved, type PointVerdict, type DOptimalPointsOptions } from "./d-optimal-design";
 export { designLogDet, dEfficiency, relativeDEfficiency, relativeDEfficiencyOfRuns, type NaturalRun } from "./d-efficiency";
+export {
+  safeDesignAlternatives,
+  ALTERNATIVE_KINDS,
+  type AlternativeKind,
+  type BlockedRun,
+  type DesignAlternative,
+  type JudgedDesign,
+  type SafeAlternatives,
+  type SafeAlternativesOptions,
+} from "./safe-alternatives";
