@@ -21,13 +21,25 @@ try {
   step("Tareline: setting up (npm start). Each step says what it does; re-runs skip what is done.");
   await acquireLock(`${root}/.run/start.lock`, "npm start or npm stop");
   ensureNodeModules(root);
-  const { ensureCluster } = await import("./lib/postgres.mjs");
+  const { ensureCluster, clusterPaths, runningServer } = await import("./lib/postgres.mjs");
   const { secrets } = await import("./lib/app-env.mjs");
   const { migrate, seed } = await import("./lib/database.mjs");
-  const { ensureMaildev, ensureBuild, ensureNext, ensureWorker } = await import("./lib/services.mjs");
+  const { ensureMaildev, ensureBuild, ensureNext, ensureWorker, checkPortsFirst, runsWith } = await import("./lib/services.mjs");
   const runDir = `${root}/.run`;
   mkdirSync(runDir, { recursive: true });
   const s = secrets(root, "dev");
+
+  // Before anything starts: every port we will listen on is free, or already ours.
+  const ourPg = runningServer(clusterPaths(root, "dev").data);
+  const maildevOurs = runsWith(`${runDir}/maildev.pid`, { smtpPort: SMTP_PORT, webPort: MAIL_WEB_PORT });
+  await checkPortsFirst([
+    ...(process.env.DATABASE_URL ? [] : [{ port: PGPORT, what: "PostgreSQL (dev)", envVar: "TARELINE_PGPORT", ours: ourPg?.port === PGPORT }]),
+    ...(process.env.SMTP_URL ? [] : [
+      { port: SMTP_PORT, what: "the fake mail service's SMTP", envVar: "TARELINE_SMTP_PORT", ours: maildevOurs },
+      { port: MAIL_WEB_PORT, what: "the fake mail service's inbox", envVar: "TARELINE_MAIL_WEB_PORT", ours: maildevOurs },
+    ]),
+    { port: PORT, what: "the Tareline app (Next.js)", envVar: "PORT", ours: runsWith(`${runDir}/next.pid`, { port: PORT, distDir: DIST_DIR }) },
+  ], "npm start");
 
   let databaseUrl = process.env.DATABASE_URL;
   let pgLog = null;

@@ -47,12 +47,22 @@ try {
   ensureNodeModules(root);
   const { run } = await import("./lib/run.mjs");
   const { stopRecorded } = await import("./lib/processes.mjs");
-  const { ensureCluster } = await import("./lib/postgres.mjs");
+  const { ensureCluster, clusterPaths, runningServer } = await import("./lib/postgres.mjs");
   const { secrets } = await import("./lib/app-env.mjs");
   const { migrate, seed } = await import("./lib/database.mjs");
-  const { ensureBuild, ensureNext, ensureWorker } = await import("./lib/services.mjs");
+  const { ensureBuild, ensureNext, ensureWorker, checkPortsFirst } = await import("./lib/services.mjs");
   const runDir = `${root}/.run/test`;
   mkdirSync(runDir, { recursive: true });
+  // Before anything starts: the fixed ports this run will listen on are free, or ours.
+  const pgPort = portFromEnv("TARELINE_TEST_PGPORT") ?? 54339;
+  const appPort = portFromEnv("TARELINE_TEST_PORT");
+  await stopRecorded(`${runDir}/next.pid`);
+  await checkPortsFirst([
+    ...((suites.includes("integration") || suites.includes("e2e")) && !process.env.TEST_DATABASE_URL
+      ? [{ port: pgPort, what: "PostgreSQL (test)", envVar: "TARELINE_TEST_PGPORT", ours: runningServer(clusterPaths(root, "test").data)?.port === pgPort }]
+      : []),
+    ...(suites.includes("e2e") && appPort ? [{ port: appPort, what: "the app under test (Next.js)", envVar: "TARELINE_TEST_PORT", ours: false }] : []),
+  ], "npm test");
   const bin = (name) => `${root}/node_modules/.bin/${name}`;
   const baseEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", FORCE_COLOR: "0" };
   const stopWorker = async () => {
@@ -70,7 +80,7 @@ try {
       step("PostgreSQL: using TEST_DATABASE_URL from the environment");
     } else {
       const cluster = await ensureCluster({
-        root, name: "test", port: portFromEnv("TARELINE_TEST_PGPORT") ?? 54339, portVar: "TARELINE_TEST_PGPORT",
+        root, name: "test", port: pgPort, portVar: "TARELINE_TEST_PGPORT",
         database: "tareline_test", role: "tareline", password: s.dbPassword, command: "npm test",
       });
       step("PostgreSQL (test): recreating database tareline_test so every run starts clean");
@@ -125,7 +135,7 @@ try {
 
   async function e2e() {
     const chromium = ensureChromium();
-    const port = portFromEnv("TARELINE_TEST_PORT") ?? (await freePort());
+    const port = appPort ?? (await freePort());
     const appUrl = `http://127.0.0.1:${port}`;
     const appEnv = { ...env, NODE_ENV: "production", NEXTAUTH_URL: appUrl, APP_URL: appUrl };
     ensureBuild(root, appEnv, ".next-test");

@@ -50,7 +50,7 @@ async function main(): Promise<void> {
             log(
               j.retryCount < j.retryLimit
                 ? `Job worker: ${attempt} failed (${reason}); pg-boss retries it with backoff`
-                : `Job worker: ${attempt} failed (${reason}); no retries left, the job stays in ${JOB_SCHEMA}.job as failed`,
+                : `Job worker: ${attempt} failed (${reason}); no retries left; the job stays in ${JOB_SCHEMA}.job as failed (archived after 12 h)`,
             );
             throw error;
           }

@@ -99,3 +99,19 @@ export async function ensureWorker(root, env, { runDir, name = "worker", restart
   }
   if (!liveRecordedProcess(pidFile)) throw new Error(`The job worker exited while starting:\n${tail(logFile)}`);
 }
+
+/**
+ * Checks, before anything starts, every port a service will need that is not already held
+ * by that same service of ours (`ours` true); throws naming the first port taken.
+ */
+export async function checkPortsFirst(items, command) {
+  const needed = items.filter((i) => !i.ours);
+  for (const i of needed) await assertPortFree(i.port, { what: i.what, envVar: i.envVar, command });
+  if (needed.length) step(`Ports: ${needed.map((i) => `${i.port} (${i.what})`).join(", ")} free`);
+}
+
+/** Whether our recorded service runs with these recorded settings. */
+export function runsWith(pidFile, wanted) {
+  const live = liveRecordedProcess(pidFile);
+  return live !== null && Object.entries(wanted).every(([k, v]) => live[k] === v);
+}
