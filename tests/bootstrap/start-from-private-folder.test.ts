@@ -56,7 +56,7 @@ function buildIsFresh(distDir: string): boolean {
 describe.skipIf(!isRoot)("npm start as root from a 0700 folder", () => {
   let parent = "";
   let clone = "";
-  let env: NodeJS.ProcessEnv = {};
+  let env: Record<string, string | undefined> = {};
   const ports = { app: 0, pg: 0, smtp: 0, web: 0 };
 
   const script = (name: "start" | "stop") =>
