@@ -56,7 +56,7 @@ function buildIsFresh(distDir: string): boolean {
 describe.skipIf(!isRoot)("npm start as root from a 0700 folder", () => {
   let parent = "";
   let clone = "";
-  let env: Record<string, string | undefined> = {};
+  let env: NodeJS.ProcessEnv = { NODE_ENV: "production" };
   const ports = { app: 0, pg: 0, smtp: 0, web: 0 };
 
   const script = (name: "start" | "stop") =>
@@ -90,6 +90,8 @@ describe.skipIf(!isRoot)("npm start as root from a 0700 folder", () => {
     ports.smtp = Number(process.env.TARELINE_SMTP_PORT ?? (await freePort()));
     ports.web = Number(process.env.TARELINE_MAIL_WEB_PORT ?? (await freePort()));
     env = {
+      // Only what a person's shell would have, plus the ports: nothing of this test run's setup.
+      NODE_ENV: "production",
       PATH: process.env.PATH,
       HOME: process.env.HOME,
       LANG: process.env.LANG ?? "C.UTF-8",
