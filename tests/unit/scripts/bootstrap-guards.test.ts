@@ -5,9 +5,10 @@
  * (/proc/<pid>/stat), whether a port accepts a listener.
  */
 import { spawn, type ChildProcess } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readFileSync, readdirSync, realpathSync, rmSync, writeFileSync, existsSync } from "node:fs";
 import { createServer, type Server } from "node:net";
 import { tmpdir } from "node:os";
+import { createHash } from "node:crypto";
 import { join } from "node:path";
 import { pathToFileURL } from "node:url";
 import { afterAll, describe, expect, it } from "vitest";
@@ -141,5 +142,76 @@ describe("port check", () => {
     const free = check();
     await free.exited;
     expect(free.out.text.trim()).toBe("free");
+  });
+});
+
+describe("cluster location", () => {
+  /** clusterPaths(checkout, "dev").base, computed in a fresh process. */
+  async function clusterBase(checkout: string): Promise<string> {
+    const r = node(`
+      const { clusterPaths } = await import(${JSON.stringify(lib("postgres.mjs"))});
+      console.log(clusterPaths(${JSON.stringify(checkout)}, "dev").base);
+    `);
+    expect(await r.exited).toBe(0);
+    return r.out.text.trim();
+  }
+  const checkout = (name: string) => {
+    const d = join(dir, name);
+    mkdirSync(d, { recursive: true });
+    return realpathSync(d);
+  };
+  const record = (at: string, content: object) => {
+    mkdirSync(join(at, ".data/dev"), { recursive: true });
+    writeFileSync(join(at, ".data/dev/cluster.json"), JSON.stringify(content));
+  };
+  const isRoot = process.getuid?.() === 0;
+
+  it("puts a new cluster where its server's user can reach it: outside the checkout as root, inside otherwise", async () => {
+    const fresh = checkout("fresh");
+    const hash = createHash("sha256").update(fresh).digest("hex").slice(0, 16);
+    expect(await clusterBase(fresh)).toBe(isRoot ? `/var/lib/tareline/clusters/${hash}-dev` : `${fresh}/.data/dev`);
+  });
+
+  it("keeps a cluster of the earlier layout (.data/dev/pg) where it is", async () => {
+    const legacy = checkout("legacy");
+    mkdirSync(join(legacy, ".data/dev/pg"), { recursive: true });
+    writeFileSync(join(legacy, ".data/dev/pg/PG_VERSION"), "15\n");
+    expect(await clusterBase(legacy)).toBe(`${legacy}/.data/dev`);
+  });
+
+  it("follows a checkout that moved, and gives a copy whose original still exists a cluster of its own", async () => {
+    const elsewhere = "/var/lib/tareline/clusters/0000000000000000-dev";
+    const moved = checkout("moved");
+    record(moved, { checkout: join(dir, "gone"), dir: elsewhere });
+    expect(await clusterBase(moved)).toBe(elsewhere);
+
+    const original = checkout("original");
+    record(original, { checkout: original, dir: elsewhere });
+    const copy = checkout("copy");
+    record(copy, { checkout: original, dir: elsewhere });
+    expect(await clusterBase(original)).toBe(elsewhere);
+    expect(await clusterBase(copy)).not.toBe(elsewhere);
+  });
+
+  it("runs a cluster with the binaries of its PG_VERSION, and says what to install when they are missing", async () => {
+    const binaries = (dataDir: string) =>
+      node(`
+        const { serverBinaries } = await import(${JSON.stringify(lib("postgres.mjs"))});
+        try { console.log(serverBinaries(${JSON.stringify(dataDir)})); } catch (e) { console.log(e.message); }
+      `);
+    const installed = existsSync("/usr/lib/postgresql") ? readdirSync("/usr/lib/postgresql").filter((v) => existsSync(`/usr/lib/postgresql/${v}/bin/pg_ctl`)) : [];
+    const data = join(dir, "pgdata");
+    mkdirSync(data, { recursive: true });
+    if (installed[0]) {
+      writeFileSync(join(data, "PG_VERSION"), `${installed[0]}\n`);
+      const ok = binaries(data);
+      await ok.exited;
+      expect(ok.out.text.trim()).toBe(`/usr/lib/postgresql/${installed[0]}/bin`);
+    }
+    writeFileSync(join(data, "PG_VERSION"), "99\n");
+    const missing = binaries(data);
+    await missing.exited;
+    expect(missing.out.text).toContain("was made by PostgreSQL 99, but /usr/lib/postgresql/99/bin is missing");
+    expect(missing.out.text).toContain("apt-get install -y postgresql-99");
   });
 });
