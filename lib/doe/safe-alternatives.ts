@@ -119,14 +119,15 @@ function defaultModel(input: DesignInput): ModelSpec {
 }
 
 /** The largest x in [lo, hi] with ok(x), scanning down from hi in `steps` and refining by bisection; null when none. */
-function largestOk(lo: number, hi: number, ok: (x: number) => boolean, steps = 48): number | null {
+function largestOk(lo: number, hi: number, ok: (x: number) => boolean, steps = 32): number | null {
   if (ok(hi)) return hi;
   let bad = hi;
   for (let s = 1; s <= steps; s++) {
     const x = hi - ((hi - lo) * s) / steps;
     if (ok(x)) {
       let good = x;
-      for (let it = 0; it < 40 && bad - good > 1e-9 * (1 + Math.abs(hi)); it++) {
+      // To a relative 1e-7: finer than the rounding applied to the result (α to 1e-4, a limit to 1/1000 of the range).
+      for (let it = 0; it < 40 && bad - good > 1e-7 * (1 + Math.abs(hi)); it++) {
         const mid = (good + bad) / 2;
         if (ok(mid)) good = mid;
         else bad = mid;
@@ -309,6 +310,7 @@ function dOptimalAlternative(input: DesignInput, base: DesignInputRaw, originalD
     return make(kind, `${n} runs chosen for the ${typeof model === "string" ? model : "given"} model from ${candidates.length} unblocked candidate points (${removed} blocked removed)`, alt);
   } catch (e) {
     if (!(e instanceof AppError)) throw e;
-    return unavailable(kind, `the unblocked candidates cannot support the model: ${e.message}`);
+    if (e.code === "infeasible") return unavailable(kind, `the unblocked candidates cannot support the model (${e.message})`);
+    return unavailable(kind, `beyond the bounds of the D-optimal search (${e.message})`);
   }
 }
