@@ -44,11 +44,11 @@ export const D_OPTIMAL_LIMITS = {
 } as const;
 
 /** Default number of seeded starts. */
-export const DEFAULT_STARTS = 6;
+export const DEFAULT_STARTS = 3;
 /** Default limit of exchange passes per descent (a descent stops earlier when no exchange improves). */
 export const DEFAULT_MAX_PASSES = 100;
 /** Default tabu steps per start. */
-export const DEFAULT_TABU_STEPS = 600;
+export const DEFAULT_TABU_STEPS = 1600;
 
 /** Options of the search. */
 export interface DOptimalOptions {
@@ -184,6 +184,10 @@ class ExchangeState {
   private readonly v2: Float64Array;
   private readonly b1: Float64Array;
   private readonly b2: Float64Array;
+  /** A rank-two update of D left for the next tabu scan to apply: D[q][r] −= pa1[q]·b1[r] + pa2[q]·b2[r]. */
+  private readonly pa1: Float64Array;
+  private readonly pa2: Float64Array;
+  private deferred = false;
   /** Multiply-adds spent so far (the work budget counts these). */
   work = 0;
 
@@ -202,6 +206,8 @@ class ExchangeState {
     this.v2 = new Float64Array(p);
     this.b1 = new Float64Array(N);
     this.b2 = new Float64Array(N);
+    this.pa1 = new Float64Array(n);
+    this.pa2 = new Float64Array(n);
   }
 
   loadCost(): number {
@@ -244,6 +250,7 @@ class ExchangeState {
   load(design: ArrayLike<number>): boolean {
     const { F, N, p, n } = this;
     for (let i = 0; i < n; i++) this.design[i] = design[i]!;
+    this.deferred = false;
     this.work += this.loadCost();
     const inv = inverseSpd(informationMatrix(F, p, this.design), p);
     if (!inv) return false;
@@ -268,8 +275,9 @@ class ExchangeState {
    * nothing changed, when the exchange would make X'X singular (1 + Δ not safely
    * positive).
    */
-  exchange(i: number, j: number): boolean {
-    const { minv, F, p, N, n, d, D, design, v1, v2, b1, b2 } = this;
+  exchange(i: number, j: number, defer = false): boolean {
+    if (this.deferred) this.flush();
+    const { minv, F, p, N, n, d, D, design, v1, v2, b1, b2, pa1, pa2 } = this;
     const k = design[i]!;
     this.work += this.exchangeCost();
     const oj = j * p;
@@ -323,18 +331,30 @@ class ExchangeState {
       d[r]! -= c1 * t1 * t1 + c2 * t2 * t2;
     }
     for (let q = 0; q < n; q++) {
-      if (q === i) continue;
-      const a1 = c1 * b1[design[q]!]!;
-      const a2 = c2 * b2[design[q]!]!;
-      const row = q * N;
-      for (let r = 0; r < N; r++) D[row + r]! -= a1 * b1[r]! + a2 * b2[r]!;
+      pa1[q] = q === i ? 0 : c1 * b1[design[q]!]!;
+      pa2[q] = q === i ? 0 : c2 * b2[design[q]!]!;
     }
+    this.deferred = true;
+    if (!defer) this.flush();
     const e1 = 1 - c1 * dj;
     const e2 = c2 * v2fj;
     const row = i * N;
     for (let r = 0; r < N; r++) D[row + r] = e1 * b1[r]! - e2 * b2[r]!;
     design[i] = j;
     return true;
+  }
+
+  /** Applies the deferred rank-two update of D. */
+  private flush(): void {
+    const { N, n, D, b1, b2, pa1, pa2 } = this;
+    this.deferred = false;
+    for (let q = 0; q < n; q++) {
+      const a1 = pa1[q]!;
+      const a2 = pa2[q]!;
+      if (a1 === 0 && a2 === 0) continue;
+      const row = q * N;
+      for (let r = 0; r < N; r++) D[row + r] = D[row + r]! - a1 * b1[r]! - a2 * b2[r]!;
+    }
   }
 
   /**
@@ -383,8 +403,9 @@ class ExchangeState {
    */
   tabu(steps: number, tenure: number, rng: Rng, budget: number): boolean {
     const { N, n, d, D, design } = this;
+    const tieBreaker = new TieBreaker(Math.floor(rng() * 4294967296));
     const stepCost = 3 * n * N + this.exchangeCost();
-    const refreshEvery = 50;
+    const refreshEvery = 100;
     const tabuUntil = new Int32Array(N);
     let logDet = this.logDet();
     let best = logDet;
@@ -401,14 +422,21 @@ class ExchangeState {
       let bj = -1;
       let bd = -Infinity;
       let ties = 0;
+      // The scan also applies the rank-two update of D left by the last exchange (one pass over D).
+      const { b1, b2, pa1, pa2 } = this;
+      const deferred = this.deferred;
+      this.deferred = false;
       for (let i = 0; i < n; i++) {
         const xi = design[i]!;
         const di = d[xi]!;
         const row = i * N;
+        const x1 = deferred ? pa1[i]! : 0;
+        const x2 = deferred ? pa2[i]! : 0;
         for (let j = 0; j < N; j++) {
+          const dij = D[row + j]! - x1 * b1[j]! - x2 * b2[j]!;
+          D[row + j] = dij;
           if (j === xi) continue;
           const dj = d[j]!;
-          const dij = D[row + j]!;
           const delta = dj - di - di * dj + dij * dij;
           if (delta < bd - TIE) continue;
           if (tabuUntil[j]! > step && !(delta > aspiration)) continue;
@@ -417,7 +445,7 @@ class ExchangeState {
             bi = i;
             bj = j;
             ties = 1;
-          } else if (rng() * ++ties < 1) {
+          } else if (tieBreaker.next() * ++ties < 1) {
             bi = i;
             bj = j;
           }
@@ -426,7 +454,7 @@ class ExchangeState {
       this.work += 3 * n * N;
       if (bi < 0 || !(1 + bd > 1e-6)) break;
       const xi = design[bi]!;
-      if (!this.exchange(bi, bj)) {
+      if (!this.exchange(bi, bj, true)) {
         tabuUntil[bj] = step + tenure;
         continue;
       }
@@ -446,6 +474,30 @@ class ExchangeState {
   }
 }
 
+/**
+ * Breaks ties among equally good exchanges (reservoir sampling needs one uniform number
+ * per tie, and a symmetric candidate grid has thousands): Marsaglia's xorshift32
+ * ("Xorshift RNGs", Journal of Statistical Software 8, 2003), seeded from the search's
+ * seeded generator, its state in a typed array so that no number is boxed.
+ */
+class TieBreaker {
+  private readonly state = new Uint32Array(1);
+
+  constructor(seed: number) {
+    this.state[0] = seed >>> 0 || 0x9e3779b9;
+  }
+
+  /** A uniform number in [0, 1). */
+  next(): number {
+    let x = this.state[0]!;
+    x ^= x << 13;
+    x ^= x >>> 17;
+    x ^= x << 5;
+    this.state[0] = x;
+    return this.state[0]! / 4294967296;
+  }
+}
+
 /** Relative gain below which an exchange or a pass does not count as an improvement. */
 const CONVERGED = 1e-9;
 /** Two Δ closer than this are a tie. */
@@ -453,7 +505,7 @@ const TIE = 1e-12;
 
 /**
  * A starting design (Atkinson, Donev & Tobias, Optimum Experimental Designs, with SAS,
- * 2007, §12.4, from memory): a random number q < p of candidates chosen at random, then
+ * 2007, from memory): a random number q < p of candidates chosen at random, then
  * points added one at a time where the prediction variance d(x) is largest (ties
  * broken at random), from a small ridge εI so that the first p points are well defined.
  */

@@ -73,9 +73,9 @@ export const designInputSchema = z
     candidates: z.array(pointSchema).min(1).max(D_OPTIMAL_LIMITS.candidates).optional(),
     /** d-optimal: candidate points (natural units) the search must not use, e.g. runs a caution blocks. */
     excludeCandidates: z.array(pointSchema).max(D_OPTIMAL_LIMITS.candidates).optional(),
-    /** d-optimal: seeded starts of the search (default 6); the work budget may end it sooner. */
+    /** d-optimal: seeded starts of the search (default 3); the work budget may end it sooner. */
     starts: z.number().int().min(1).max(100).optional(),
-    /** d-optimal: tabu steps per start after the first local optimum (default 600; 0 for plain modified Fedorov). */
+    /** d-optimal: tabu steps per start after the first local optimum (default 1600; 0 for plain modified Fedorov). */
     tabuSteps: z.number().int().min(0).max(10_000).optional(),
     /** central composite: augment these existing factorial (and centre) runs with axial and centre runs in a new block. */
     augment: z.object({ runs: z.array(givenRunSchema).min(2).max(DESIGN_LIMITS.runs) }).optional(),
