@@ -404,8 +404,9 @@ class ExchangeState {
   tabu(steps: number, tenure: number, rng: Rng, budget: number): boolean {
     const { N, n, d, D, design } = this;
     const tieBreaker = new TieBreaker(Math.floor(rng() * 4294967296));
+    const pick = new Int32Array(2);
     const stepCost = 3 * n * N + this.exchangeCost();
-    const refreshEvery = 100;
+    const refreshEvery = 200;
     const tabuUntil = new Int32Array(N);
     let logDet = this.logDet();
     let best = logDet;
@@ -418,39 +419,11 @@ class ExchangeState {
       }
       // A tabu candidate is allowed when its exchange beats the best design seen.
       const aspiration = Math.expm1(best - logDet) + CONVERGED;
-      let bi = -1;
-      let bj = -1;
-      let bd = -Infinity;
-      let ties = 0;
-      // The scan also applies the rank-two update of D left by the last exchange (one pass over D).
-      const { b1, b2, pa1, pa2 } = this;
       const deferred = this.deferred;
       this.deferred = false;
-      for (let i = 0; i < n; i++) {
-        const xi = design[i]!;
-        const di = d[xi]!;
-        const row = i * N;
-        const x1 = deferred ? pa1[i]! : 0;
-        const x2 = deferred ? pa2[i]! : 0;
-        for (let j = 0; j < N; j++) {
-          const dij = D[row + j]! - x1 * b1[j]! - x2 * b2[j]!;
-          D[row + j] = dij;
-          if (j === xi) continue;
-          const dj = d[j]!;
-          const delta = dj - di - di * dj + dij * dij;
-          if (delta < bd - TIE) continue;
-          if (tabuUntil[j]! > step && !(delta > aspiration)) continue;
-          if (delta > bd + TIE) {
-            bd = delta;
-            bi = i;
-            bj = j;
-            ties = 1;
-          } else if (tieBreaker.next() * ++ties < 1) {
-            bi = i;
-            bj = j;
-          }
-        }
-      }
+      const bd = scanExchanges(n, N, design, d, D, this.b1, this.b2, deferred ? this.pa1 : null, this.pa2, tabuUntil, step, aspiration, tieBreaker, pick);
+      const bi = pick[0]!;
+      const bj = pick[1]!;
       this.work += 3 * n * N;
       if (bi < 0 || !(1 + bd > 1e-6)) break;
       const xi = design[bi]!;
@@ -472,6 +445,64 @@ class ExchangeState {
     this.load(bestDesign);
     return finished;
   }
+}
+
+/**
+ * One tabu step's scan of all n·N exchanges: the largest Δ(design[i], j) over the
+ * exchanges allowed (j not tabu at `step`, unless Δ > `aspiration`), ties broken
+ * uniformly at random; the chosen i and j in `pick`, Δ returned (−Infinity when none).
+ * When `pa1` is given, the scan first applies the deferred rank-two update
+ * D[i][j] −= pa1[i]·b1[j] + pa2[i]·b2[j] (one pass over D instead of two). A function
+ * of its own so that the engine optimises this loop by itself.
+ */
+function scanExchanges(
+  n: number,
+  N: number,
+  design: Int32Array,
+  d: Float64Array,
+  D: Float64Array,
+  b1: Float64Array,
+  b2: Float64Array,
+  pa1: Float64Array | null,
+  pa2: Float64Array,
+  tabuUntil: Int32Array,
+  step: number,
+  aspiration: number,
+  tieBreaker: TieBreaker,
+  pick: Int32Array,
+): number {
+  let bi = -1;
+  let bj = -1;
+  let bd = -Infinity;
+  let ties = 0;
+  for (let i = 0; i < n; i++) {
+    const xi = design[i]!;
+    const di = d[xi]!;
+    const row = i * N;
+    const x1 = pa1 === null ? 0 : pa1[i]!;
+    const x2 = pa1 === null ? 0 : pa2[i]!;
+    for (let j = 0; j < N; j++) {
+      const dij = D[row + j]! - x1 * b1[j]! - x2 * b2[j]!;
+      D[row + j] = dij;
+      if (j === xi) continue;
+      const dj = d[j]!;
+      const delta = dj - di - di * dj + dij * dij;
+      if (delta < bd - TIE) continue;
+      if (tabuUntil[j]! > step && !(delta > aspiration)) continue;
+      if (delta > bd + TIE) {
+        bd = delta;
+        bi = i;
+        bj = j;
+        ties = 1;
+      } else if (tieBreaker.next() * ++ties < 1) {
+        bi = i;
+        bj = j;
+      }
+    }
+  }
+  pick[0] = bi;
+  pick[1] = bj;
+  return bd;
 }
 
 /**
