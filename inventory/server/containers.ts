@@ -39,7 +39,7 @@ export function containerRow(c: Container, held: bigint, intervals: PeroxideInte
       pyrophoric: chem?.pyrophoric ?? false,
       waterReactive: chem?.waterReactive ?? false,
       peroxideClass: chem?.peroxideClass ?? null,
-      peroxideTestDue: peroxideTestDue({ peroxideClass: chem?.peroxideClass ?? null, openedOn: c.openedOn, receivedOn: c.receivedOn, testedOn: c.peroxideTestedOn, intervals }),
+      peroxideTestDue: peroxideTestDue({ peroxideClass: chem?.peroxideClass ?? null, ghs: chem?.ghsStatements ?? [], openedOn: c.openedOn, receivedOn: c.receivedOn, testedOn: c.peroxideTestedOn, expiresOn: c.expiresOn, intervals }),
     },
   };
 }

@@ -9,6 +9,8 @@ import { casProblem } from "@/inventory/cas";
 import { parseDecimal } from "@/inventory/decimal";
 import { unitInfo } from "@/inventory/units";
 import { requirementQuantity } from "@/inventory/conversion";
+import { GHS_STATEMENT_PATTERN, PEROXIDE_CLASSES, ghsStatementsSchema } from "@/lib/hazards/hazard-flags";
+import { isoDateSchema } from "@/lib/hazards/iso-date";
 
 const trimmed = (max: number) => z.string().trim().max(max, `at most ${max} characters`);
 const optionalText = (max: number) =>
@@ -55,12 +57,8 @@ export const stockUnitSchema = z.string().refine((u) => unitInfo(u) !== null, "u
 /** Requirement units: amount of substance, mass or volume. */
 export const requirementUnitSchema = z.string().refine((u) => requirementQuantity(1, u) !== null, "use mmol, µmol, mol, a mass (mg, g) or a volume (µL, mL)");
 
-const isoDate = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "use YYYY-MM-DD")
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), "not a real date");
 const optionalDate = z
-  .union([isoDate, z.literal(""), z.null()])
+  .union([isoDateSchema, z.literal(""), z.null()])
   .optional()
   .transform((v) => (v ? v : null));
 
@@ -73,8 +71,8 @@ export const casSchema = z
   });
 
 export const PHYSICAL_STATES = ["solid", "liquid", "gas", "solution"] as const;
-export const PEROXIDE_CLASSES = ["A", "B", "C", "D"] as const;
-export const GHS_CODE = /^(H\d{3}[A-Za-z]*|EUH\d{3}[A-Za-z]*|P\d{3}(\+P\d{3})*)$/;
+export { PEROXIDE_CLASSES };
+export const GHS_CODE = GHS_STATEMENT_PATTERN;
 
 /** A chemical as a form or the API sends it. */
 export const chemicalInputSchema = z.object({
@@ -88,7 +86,7 @@ export const chemicalInputSchema = z.object({
   molarMass: optionalPositiveDecimal,
   density: optionalPositiveDecimal,
   physicalState: z.enum(PHYSICAL_STATES, { message: "choose solid, liquid, gas or solution" }).default("solid"),
-  ghsStatements: z.array(z.string().trim().toUpperCase().regex(GHS_CODE, "a GHS code such as H225, EUH019 or P210")).max(80).default([]),
+  ghsStatements: ghsStatementsSchema.default([]),
   pyrophoric: z.boolean().default(false),
   waterReactive: z.boolean().default(false),
   peroxideClass: z
