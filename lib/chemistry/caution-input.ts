@@ -90,11 +90,14 @@ export function liquidSolvents(doc: PlanDocument, r: RunSheet["runs"][number]): 
 }
 
 /**
- * The hazard fields of a component or solvent as the hazard engine takes them: flags only
- * where stated; an opening date not given is taken as "unopened" (null), as before.
+ * The hazard fields of a component or solvent as the hazard engine takes them: flags and
+ * dates only where stated (an opening date not given is "not recorded", which the
+ * peroxide rule reports for a peroxide former).
  */
 export function cautionHazards(h: PlanDocument["recipe"]["components"][number]["hazards"]): Omit<CautionComponent, "name"> {
-  const out: Omit<CautionComponent, "name"> = { ghs: [...h.ghs], openedOn: h.openedOn ?? null, peroxideTestedOn: h.peroxideTestedOn ?? null };
+  const out: Omit<CautionComponent, "name"> = { ghs: [...h.ghs] };
+  if (h.openedOn !== undefined) out.openedOn = h.openedOn;
+  if (h.peroxideTestedOn !== undefined) out.peroxideTestedOn = h.peroxideTestedOn;
   if (h.pyrophoric !== undefined) out.pyrophoric = h.pyrophoric;
   if (h.waterReactive !== undefined) out.waterReactive = h.waterReactive;
   if (h.peroxideClass !== undefined) out.peroxideClass = h.peroxideClass;

@@ -10,5 +10,6 @@ export * from "./dispensing";
 export * from "./design-runs";
 export * from "./run-sheet";
 export * from "./caution-input";
+export * from "./inventory-facts";
 export * from "./plan-report";
 export * from "./smiles";
