@@ -247,7 +247,10 @@ export type PlanFactor = z.output<typeof planFactorSchema>;
 export const designRunSchema = z.strictObject({
   standardOrder: z.number().int().min(1),
   runOrder: z.number().int().min(1).optional(),
-  pointType: z.string().min(1).max(40).default("factorial"),
+  /** The run's kind in its design: factorial, axial, center or optimal (or a kind of the caller's own). */
+  kind: z.string().min(1).max(40).default("factorial"),
+  /** The old name of `kind`: refused with a message that says so. */
+  pointType: z.never({ error: "was renamed kind (factorial, axial, center or optimal)" }).optional(),
   coded: z.record(z.string(), z.number().finite()).optional(),
   natural: z.record(z.string(), z.number().finite()).optional(),
   block: z.union([z.number(), z.string()]).optional(),

@@ -20,7 +20,7 @@ export interface RunSheetRun {
   run: number;
   standardOrder: number;
   runOrder: number;
-  pointType: string;
+  kind: string;
   block: number | string | null;
   coded: Record<string, number>;
   natural: Record<string, number>;
@@ -153,7 +153,7 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
       run: r.run,
       standardOrder: res.standardOrder,
       runOrder: res.runOrder,
-      pointType: res.pointType,
+      kind: res.kind,
       block: res.block,
       coded: res.coded,
       natural: res.natural,

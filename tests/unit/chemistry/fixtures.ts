@@ -106,7 +106,7 @@ export function screeningPlan(): PlanDocumentInput {
   const runs = coded.map((x, i) => ({
     standardOrder: i + 1,
     runOrder: ((i * 7) % 10) + 1,
-    pointType: i < 8 ? "factorial" : "center",
+    kind: i < 8 ? "factorial" : "center",
     coded: Object.fromEntries(names.map((n, j) => [n, x[j]!])),
   }));
   return suzukiPlan({ factors, design: { runs } });
