@@ -12,4 +12,5 @@ export * from "./run-sheet";
 export * from "./caution-input";
 export * from "./inventory-facts";
 export * from "./plan-report";
+export * from "./validate-plan";
 export * from "./smiles";

@@ -3,12 +3,13 @@
  * mixes to prepare; the per-vial dispense list in order of addition; per-run totals;
  * and the total needed of every chemical (what inventory reserves).
  */
-import { AppError, parseOrThrow } from "../errors/app-error";
-import { findDefaultVessel, type VesselType } from "../hazards/vessels";
-import { resolveRuns, type ResolvedRun } from "./design-runs";
+import { AppError } from "../errors/app-error";
+import type { VesselType } from "../hazards/vessels";
+import type { ResolvedRun } from "./design-runs";
 import { planDispensing, type Dispense, type DispenseMode, type PlanNote, type RunAmounts, type Stock } from "./dispensing";
-import { planDocumentSchema, type Dispensing, type PlanDocument } from "./plan-document";
-import { componentAmounts, componentInfos, runConditions, type ComponentAmount, type ComponentInfo, type RunProblem } from "./stoichiometry";
+import type { Dispensing, PlanDocument } from "./plan-document";
+import { componentAmounts, runConditions, type ComponentAmount, type ComponentInfo, type RunProblem } from "./stoichiometry";
+import { validatePlan } from "./validate-plan";
 
 export interface RunSheetComponent extends ComponentAmount {
   dispensedAs: DispenseMode;
@@ -69,14 +70,6 @@ export interface RunSheet {
   notes: PlanNote[];
 }
 
-/** Resolves the plan's vessel: a vessel type, or the id of a default vessel type. */
-export function resolveVessel(doc: PlanDocument): VesselType {
-  if (typeof doc.vessel !== "string") return doc.vessel;
-  const v = findDefaultVessel(doc.vessel);
-  if (!v) throw AppError.field("vessel", `"${doc.vessel}" is not a known vessel type id; give the vessel type in full`);
-  return v;
-}
-
 function groupProblems(problems: RunProblem[]): AppError {
   const byKey = new Map<string, { p: RunProblem; runs: number[] }>();
   for (const p of problems) {
@@ -101,11 +94,8 @@ function groupProblems(problems: RunProblem[]): AppError {
  *   fill, or the stocks cannot fit.
  */
 export function buildRunSheet(input: unknown): RunSheet {
-  const doc: PlanDocument = parseOrThrow(planDocumentSchema, input, "The plan document is not valid.");
-  const vessel = resolveVessel(doc);
-  const infos = componentInfos(doc);
-  const resolved = resolveRuns(doc);
-  return buildFromRuns(doc, vessel, infos, resolved);
+  const { doc, vessel, infos, runs } = validatePlan(input);
+  return buildFromRuns(doc, vessel, infos, runs);
 }
 
 /** As {@link buildRunSheet}, for a parsed document and resolved runs. */
@@ -134,8 +124,12 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
         `runs ${tooLittle.map((r) => r.run).join(", ")} have as little as ${Math.min(...tooLittle.map((r) => r.cond.finalVolumeUl))} µL, below the vessel's working minimum of ${minUl} µL`,
       );
     }
+    // The field that sets the volume: a concentration factor holding the scale (low
+    // concentration, large volume), else the recipe's scale.
+    const ci = doc.factors.findIndex((f) => f.binding.kind === "concentration" && f.binding.hold === "scale");
+    const path = ci >= 0 ? `factors.${ci}.${tooMuch.length > 0 ? "low" : "high"}` : "recipe.scaleMmol";
     throw new AppError("infeasible", `The final volume does not suit the vessel: ${parts.join("; ")}. Change the scale, the concentration or the vessel.`, [
-      { path: "recipe.scaleMmol", message: parts.join("; ") },
+      { path, message: parts.join("; ") },
     ]);
   }
 
