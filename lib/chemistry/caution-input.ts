@@ -6,6 +6,7 @@
  * the hazard engine's own (z.input of its schemas), not a copy.
  */
 import type { PlanCautionComponentInput, PlanCautionInput, PlanCautionRunInput } from "../hazards/plan-cautions/schema";
+import type { VesselType } from "../hazards/vessels";
 import type { PlanDocument } from "./plan-document";
 import type { RunSheet } from "./run-sheet";
 import { solventFlags } from "./stoichiometry";
@@ -25,48 +26,74 @@ export type CautionInput = Omit<PlanCautionInput, "runs"> & { runs: CautionRun[]
  * container dates the plan gives), so the incompatibility and peroxide rules see them.
  */
 export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionInput {
-  const comps = doc.recipe.components;
-  // The hazard profile of each component, the same in every run: flags only as declared;
-  // the hazard engine applies the GHS statements and its solvent records.
-  const profiles: CautionComponent[] = comps.map((c) => ({ name: c.name, ...cautionHazards(c.hazards) }));
+  const profiles = cautionProfiles(doc);
+  return { ...cautionSettings(doc, sheet.vessel), runs: sheet.runs.map((r) => cautionRun(doc, profiles, r)) };
+}
+
+/** Everything of the caution input except the runs. */
+export function cautionSettings(doc: PlanDocument, vessel: VesselType): Omit<CautionInput, "runs"> {
   return {
-    vessel: sheet.vessel,
+    vessel,
     thresholds: doc.thresholds,
     equipment: { blockMaxC: doc.equipment.blockMaxC, coolingMinC: doc.equipment.coolingMinC },
     ...(doc.now !== undefined ? { now: doc.now } : {}),
-    runs: sheet.runs.map((r) => {
-      const components: CautionComponent[] = comps.map((c, ci) => {
-        const row = r.components[ci]!;
-        const carrier = r.dispense.find((d) => d.source === row.source);
-        const out: CautionComponent = { ...profiles[ci]! };
-        if (carrier && carrier.volumeUl !== null && carrier.kind !== "solid") out.volumeUl = carrier.volumeUl;
-        return out;
-      });
-      for (const s of doc.recipe.solvents) {
-        const sv = r.solvents.find((x) => x.name === s.name);
-        if (!sv || sv.volumeFraction <= 0) continue;
-        const flags = solventFlags(s);
-        components.push({
-          name: s.name,
-          ...cautionHazards({ ghs: s.ghs, peroxideClass: s.peroxideClass, openedOn: s.openedOn, peroxideTestedOn: s.peroxideTestedOn, receivedOn: s.receivedOn, expiresOn: s.expiresOn }),
-          protic: flags.protic,
-          aqueous: flags.aqueous,
-          volumeUl: sv.volumeUl,
-        });
-      }
-      const run: CautionRun = {
-        run: r.run,
-        temperatureC: r.temperatureC,
-        liquidVolumeMl: ulToMl(r.finalVolumeUl),
-        solvents: liquidSolvents(doc, r),
-        gasReleasedMmol: r.totals.gasReleasedMmol,
-        concentratesOrHeatsToDryness: doc.recipe.concentratesOrHeatsToDryness,
-        components,
+  };
+}
+
+/**
+ * The hazard profile of each recipe component, the same in every run: flags only as
+ * declared; the hazard engine applies the GHS statements and its solvent records.
+ */
+export function cautionProfiles(doc: PlanDocument): CautionProfiles {
+  return {
+    components: doc.recipe.components.map((c) => ({ name: c.name, ...cautionHazards(c.hazards) })),
+    solvents: doc.recipe.solvents.map((s) => {
+      const flags = solventFlags(s);
+      return {
+        name: s.name,
+        ...cautionHazards({ ghs: s.ghs, peroxideClass: s.peroxideClass, openedOn: s.openedOn, peroxideTestedOn: s.peroxideTestedOn, receivedOn: s.receivedOn, expiresOn: s.expiresOn }),
+        protic: flags.protic,
+        aqueous: flags.aqueous,
       };
-      if (r.timeH !== null) run.timeH = r.timeH;
-      return run;
     }),
   };
+}
+
+/** The hazard profiles of a plan's components and of its solvents (in recipe order). */
+export interface CautionProfiles {
+  components: CautionComponent[];
+  solvents: CautionComponent[];
+}
+
+/** What `cautionRun` reads of a run-sheet run (a point's own run has the same fields). */
+export type CautionRunSource = Pick<RunSheet["runs"][number], "run" | "temperatureC" | "timeH" | "finalVolumeUl" | "solvents" | "dispense" | "totals"> & {
+  components: ReadonlyArray<{ source: string }>;
+};
+
+/** One run of the caution input: its conditions and every component in the vial. */
+export function cautionRun(doc: PlanDocument, profiles: CautionProfiles, r: CautionRunSource): CautionRun {
+  const components: CautionComponent[] = doc.recipe.components.map((_c, ci) => {
+    const row = r.components[ci]!;
+    const carrier = r.dispense.find((d) => d.source === row.source);
+    const profile = profiles.components[ci]!;
+    return carrier && carrier.volumeUl !== null && carrier.kind !== "solid" ? { ...profile, volumeUl: carrier.volumeUl } : profile;
+  });
+  doc.recipe.solvents.forEach((s, si) => {
+    const sv = r.solvents.find((x) => x.name === s.name);
+    if (!sv || sv.volumeFraction <= 0) return;
+    components.push({ ...profiles.solvents[si]!, volumeUl: sv.volumeUl });
+  });
+  const run: CautionRun = {
+    run: r.run,
+    temperatureC: r.temperatureC,
+    liquidVolumeMl: ulToMl(r.finalVolumeUl),
+    solvents: liquidSolvents(doc, r),
+    gasReleasedMmol: r.totals.gasReleasedMmol,
+    concentratesOrHeatsToDryness: doc.recipe.concentratesOrHeatsToDryness,
+    components,
+  };
+  if (r.timeH !== null) run.timeH = r.timeH;
+  return run;
 }
 
 /**
@@ -75,7 +102,7 @@ export function buildCautionInput(doc: PlanDocument, sheet: RunSheet): CautionIn
  * hexanes of n-butyllithium), as fractions of their sum (ideal mixing, as the hazard
  * engine's Raoult's-law estimate assumes). Neat liquid reagents are solutes here.
  */
-export function liquidSolvents(doc: PlanDocument, r: RunSheet["runs"][number]): Array<{ name: string; volumeFraction: number }> {
+export function liquidSolvents(doc: PlanDocument, r: Pick<RunSheet["runs"][number], "solvents" | "dispense">): Array<{ name: string; volumeFraction: number }> {
   const volumes = new Map<string, number>();
   for (const s of r.solvents) if (s.volumeUl > 0) volumes.set(s.name, (volumes.get(s.name) ?? 0) + s.volumeUl);
   for (const d of r.dispense) {

@@ -169,19 +169,8 @@ export interface DispensingContext {
  *   asked to be made into a stock in a protic or aqueous solvent.
  */
 export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[], runs: readonly RunAmounts[]): DispensePlan {
-  const notes = new Notes();
-  const mode = chooseModes(doc, infos, runs, notes);
-  const systemVolume = solventSystemVolumes(infos, runs, mode);
-  const ctx: DispensingContext = {
-    doc,
-    d: doc.dispensing,
-    minPip: doc.dispensing.minPipetteVolumeUl,
-    infos,
-    runs,
-    notes,
-    mode,
-    budget: (ri, solvent) => (runs[ri]!.cond.solventFractions[solvent] ?? 0) * systemVolume[ri]!,
-  };
+  const ctx = dispensingContext(doc, infos, runs);
+  const { notes, mode } = ctx;
   const groups = fitStocks(ctx);
   diluteStocks(ctx, groups);
   const sourceOf = nameGroups(groups, mode);
@@ -193,6 +182,28 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
     source: sourceOf.get(info.index) ?? info.component.id,
   }));
   return { modes, stocks, dispenses, solventVolumesUl, topUpsUl, notes: notes.list() };
+}
+
+/**
+ * Steps 1 and 2 ({@link chooseModes}, {@link solventSystemVolumes}): the context the
+ * later steps work on.
+ * @throws AppError as those steps do.
+ */
+export function dispensingContext(doc: PlanDocument, infos: readonly ComponentInfo[], runs: readonly RunAmounts[]): DispensingContext & { systemVolume: number[] } {
+  const notes = new Notes();
+  const mode = chooseModes(doc, infos, runs, notes);
+  const systemVolume = solventSystemVolumes(infos, runs, mode);
+  return {
+    doc,
+    d: doc.dispensing,
+    minPip: doc.dispensing.minPipetteVolumeUl,
+    infos,
+    runs,
+    notes,
+    mode,
+    systemVolume,
+    budget: (ri, solvent) => (runs[ri]!.cond.solventFractions[solvent] ?? 0) * systemVolume[ri]!,
+  };
 }
 
 /**

@@ -13,4 +13,5 @@ export * from "./caution-input";
 export * from "./inventory-facts";
 export * from "./plan-report";
 export * from "./validate-plan";
+export * from "./point-safety";
 export * from "./smiles";

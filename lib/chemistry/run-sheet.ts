@@ -70,6 +70,24 @@ export interface RunSheet {
   notes: PlanNote[];
 }
 
+/** The final volumes (µL) a vessel takes: its working range, capped by its maximum fill at room temperature. */
+export function vesselVolumeRangeUl(vessel: VesselType): { minUl: number; maxUl: number } {
+  return { minUl: vessel.workingMinMl * 1000, maxUl: Math.min(vessel.workingMaxMl, vessel.maxFillFraction * vessel.totalVolumeMl) * 1000 };
+}
+
+/** Whether a final volume leaves the vessel's range (with the run sheet's tolerance of 1e-9). */
+export function vesselVolumeProblem(vessel: VesselType, finalVolumeUl: number): "above" | "below" | null {
+  const { minUl, maxUl } = vesselVolumeRangeUl(vessel);
+  if (finalVolumeUl > maxUl * (1 + 1e-9)) return "above";
+  if (finalVolumeUl < minUl * (1 - 1e-9)) return "below";
+  return null;
+}
+
+/** Gas released in a vial (mmol): Σ gasReleasedMolPerMol × mmol of each component. */
+export function gasReleased(infos: readonly ComponentInfo[], amounts: readonly ComponentAmount[]): number {
+  return infos.reduce((a, info) => a + (info.component.gasReleasedMolPerMol ?? 0) * amounts[info.index]!.mmol, 0);
+}
+
 function groupProblems(problems: RunProblem[]): AppError {
   const byKey = new Map<string, { p: RunProblem; runs: number[] }>();
   for (const p of problems) {
@@ -108,10 +126,9 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
   if (problems.length > 0) throw groupProblems(problems);
 
   // Vessel working range and maximum fill at room temperature.
-  const maxUl = Math.min(vessel.workingMaxMl, vessel.maxFillFraction * vessel.totalVolumeMl) * 1000;
-  const minUl = vessel.workingMinMl * 1000;
-  const tooMuch = runs.filter((r) => r.cond.finalVolumeUl > maxUl * (1 + 1e-9));
-  const tooLittle = runs.filter((r) => r.cond.finalVolumeUl < minUl * (1 - 1e-9));
+  const { minUl, maxUl } = vesselVolumeRangeUl(vessel);
+  const tooMuch = runs.filter((r) => vesselVolumeProblem(vessel, r.cond.finalVolumeUl) === "above");
+  const tooLittle = runs.filter((r) => vesselVolumeProblem(vessel, r.cond.finalVolumeUl) === "below");
   if (tooMuch.length > 0 || tooLittle.length > 0) {
     const parts: string[] = [];
     if (tooMuch.length > 0) {
@@ -142,7 +159,7 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
     const dispense = plan.dispenses[ri]!;
     const dispensedVolumeUl = dispense.reduce((a, d) => a + (d.kind === "solid" ? 0 : (d.volumeUl ?? 0)), 0);
     const solidMassMg = dispense.reduce((a, d) => a + (d.kind === "solid" ? (d.massMg ?? 0) : 0), 0);
-    const gasReleasedMmol = infos.reduce((a, info) => a + (info.component.gasReleasedMolPerMol ?? 0) * r.amounts[info.index]!.mmol, 0);
+    const gasReleasedMmol = gasReleased(infos, r.amounts);
     return {
       run: r.run,
       standardOrder: res.standardOrder,
