@@ -4,7 +4,7 @@
  * containers, peroxide formers past their test date and chemicals under their low-stock
  * mark. Pure: the caller loads the lab's chemicals and containers and passes them in.
  *
- * Order of preference (PRODUCT.md "Release"): first to expire first (FEFO), then opened
+ * Order of preference (the release rule): first to expire first (FEFO), then opened
  * containers before sealed ones, then the smaller available amount (use up part-used
  * containers), then barcode for a stable order. One container that covers the whole
  * requirement is preferred; otherwise containers are taken in that order until covered.

@@ -1,7 +1,7 @@
 /**
  * Stock-solution and master-mix planning: how each component reaches each vial.
  *
- * Method (the usual practice of parallel reaction screening, REFERENCE.md §5):
+ * Method (the usual practice of parallel reaction screening; common practice):
  * - components whose amount is the same in every run go into a master mix per stock
  *   solvent (unless marked "add separately"; pyrophoric and water-reactive components
  *   never join a mix, and never a stock in a protic or aqueous solvent);

@@ -258,7 +258,7 @@ export const designRunSchema = z.strictObject({
 export type DesignRun = z.output<typeof designRunSchema>;
 
 /**
- * The design section: the CONTRACT.md `design` input without `factors`; `runs` is either
+ * The design section: the `design` verb's input without `factors`; `runs` is either
  * the d-optimal run count or the runs of a design already generated.
  */
 export const planDesignSchema = z
@@ -276,7 +276,7 @@ export const planDesignSchema = z
   });
 export type PlanDesign = z.output<typeof planDesignSchema>;
 
-/** Liquid-handling and weighing limits of the lab (REFERENCE.md §5, common practice). */
+/** Liquid-handling and weighing limits of the lab (common practice; docs/sources.md). */
 export const dispensingSchema = z
   .strictObject({
     /** Smallest volume dispensed (µL): practical minimum for air-displacement pipettes, 5–10 µL [CP]. */
@@ -285,7 +285,7 @@ export const dispensingSchema = z
     overagePercent: z.number().min(0).max(200).default(10),
     /** Liquid left in each stock container that cannot be drawn (µL) [CP]. */
     deadVolumeUl: z.number().min(0).max(100000).default(50),
-    /** Lab's minimum weighing mass (mg): USP ⟨41⟩ for a 4-place balance ≈ 82 mg (REFERENCE §5, from memory). */
+    /** Lab's minimum weighing mass (mg): USP general chapter ⟨41⟩ Balances (minimum weight for 0.10 % accuracy) for a 4-place balance ≈ 82 mg (from memory). */
     minWeighMassMg: z.number().min(0).max(100000).default(82),
     /** Largest stock that will be made up (mL), e.g. the largest volumetric flask at hand. */
     maxStockVolumeMl: z.number().gt(0).max(10000).default(25),

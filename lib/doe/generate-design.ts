@@ -1,5 +1,5 @@
 /**
- * `generateDesign`: the CONTRACT.md `design` verb as a library function. Builds the
+ * `generateDesign`: the `design` verb (README) as a library function. Builds the
  * coded runs of the chosen design in standard order (factorial part in Yates order,
  * then axial points, then centre points; replicates repeat the whole list), assigns
  * blocks, decodes to natural units and sets a seeded random run order.
@@ -29,7 +29,7 @@ import { assignRunOrder, seededRng } from "./randomize";
 /** What a run is in its design (the run field `kind`). */
 export type RunKind = "factorial" | "axial" | "center" | "optimal";
 
-/** One run of a design (CONTRACT.md `design` output). */
+/** One run of a design (the `design` verb's output). */
 export interface DesignRun {
   standardOrder: number;
   runOrder: number;
@@ -49,7 +49,7 @@ export interface DOptimalSummary {
   candidatesRemoved: number;
 }
 
-/** The CONTRACT.md `design` output, with added fields. */
+/** The `design` verb's output, with added fields. */
 export interface DesignOutput {
   design: DesignInput["design"];
   runs: DesignRun[];
@@ -132,7 +132,7 @@ function dOptimalPoints(input: DesignInput, factors: readonly Factor[]): { point
 }
 
 /**
- * Generates a design (CONTRACT.md `design`): full factorial 2^k (k ≤ 10), fractional
+ * Generates a design (the `design` verb): full factorial 2^k (k ≤ 10), fractional
  * factorial 2^(k−p) with given or minimum-aberration generators, central composite
  * (α rotatable F^¼, spherical √k, face-centred 1 or a number; circumscribed, or
  * inscribed with the axial points at the natural limits), Box–Behnken (k = 3…7) or

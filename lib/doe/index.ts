@@ -1,5 +1,5 @@
 /**
- * The design engine's public API (interfaces.md): design input schema, generation,
+ * The design engine's public API: design input schema, generation,
  * factor coding, and the building blocks (fractions, CCD, Box–Behnken, D-optimal).
  */
 export { designInputSchema, givenRunSchema, DESIGN_KINDS, type DesignInput, type DesignInputRaw, type DesignKind } from "./design-schema";

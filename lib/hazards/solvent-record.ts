@@ -1,6 +1,6 @@
 /**
  * The shape of one solvent's data. Every value carries its source and a tag saying how
- * far it was checked (../shared/REFERENCE.md's tags), so a page can show where a number
+ * far it was checked (the tags below; docs/sources.md), so a page can show where a number
  * comes from. Tareline ships a set of records (`solvent-data.ts`); a lab adds its own
  * with the same schema (tag "lab", with the lab's own citation).
  */

@@ -1,7 +1,7 @@
 /**
  * Vapour pressure of a pure solvent and of an ideal solvent mixture.
  *
- * Methods, in order of preference (../shared/REFERENCE.md §1):
+ * Methods, in order of preference (sources in docs/sources.md):
  * 1. water: IAPWS-IF97 region-4 saturation line;
  * 2. DIPPR equation 101 (Perry's Handbook, 8th ed., Table 2-8) inside its range;
  * 3. Antoine, NIST form, inside its range;
@@ -22,7 +22,7 @@ export type VaporMethod = "DIPPR-101" | "Antoine" | "IAPWS-IF97" | "estimate";
 export const ATM_BAR = 1.01325;
 /** Molar gas constant (J/(mol·K)), CODATA. */
 export const R_J_PER_MOL_K = 8.314462618;
-/** Trouton's rule constant (J/(mol·K)), REFERENCE.md §1. */
+/** Trouton's rule constant (J/(mol·K)): ΔSvap ≈ 88 J/(mol·K) at the normal boiling point (Trouton, 1884; e.g. Atkins' Physical Chemistry). */
 export const TROUTON_J_PER_MOL_K = 88;
 const ZERO_C_IN_K = 273.15;
 
