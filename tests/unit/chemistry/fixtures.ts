@@ -1,6 +1,6 @@
 /**
  * Plan documents for the chemistry tests: an invented Suzuki–Miyaura screen (the demo
- * scenario of PRODUCT.md) whose numbers are chosen for easy hand arithmetic.
+ * scenario of the README) whose numbers are chosen for easy hand arithmetic.
  */
 import type { PlanDocumentInput } from "@/lib/chemistry/plan-document";
 

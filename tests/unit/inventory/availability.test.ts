@@ -5,7 +5,7 @@ import { proposeContainers, type ChemicalFacts, type ContainerFacts } from "@/in
 import { peroxideTestDue } from "@/inventory/peroxide";
 import { addCalendarMonths as addMonths } from "@/lib/hazards/peroxide-due";
 
-const intervals = { A: 3, B: 12, C: 12, D: 12, unopened: 18 }; // lib/hazards/thresholds.ts defaults (REFERENCE §3)
+const intervals = { A: 3, B: 12, C: 12, D: 12, unopened: 18 }; // lib/hazards/thresholds.ts defaults (Prudent Practices in the Laboratory, NRC 2011)
 
 const chem = (over: Partial<ChemicalFacts> & { id: string }): ChemicalFacts => ({
   name: over.id,
