@@ -71,9 +71,16 @@ function compare(doc: Doc, at: (n: Record<string, number>) => PointSafetyResult,
   expect(limits, where).toEqual(want.limits);
 }
 
-function points(seed: string, n: number): Array<Record<string, number>> {
+function points(seed: string, n: number, box: Record<string, [number, number]> = BOX): Array<Record<string, number>> {
   const rng = seedrandom(seed);
-  return Array.from({ length: n }, () => Object.fromEntries(Object.entries(BOX).map(([k, [lo, hi]]) => [k, lo + (hi - lo) * rng()])));
+  return Array.from({ length: n }, () => Object.fromEntries(Object.entries(box).map(([k, [lo, hi]]) => [k, lo + (hi - lo) * rng()])));
+}
+
+/** The screen with concentration as a sixth factor (the volume follows): vessel volume limits come into play. */
+function withConcentration(): Doc {
+  const d = example() as Doc & { factors: Array<Record<string, unknown>> };
+  d.factors.push({ name: "conc", low: 0.1, high: 0.4, unit: "M", binding: { kind: "concentration", hold: "scale" } });
+  return d;
 }
 
 describe("pointSafety agrees with the full pipeline on a one-run design", { timeout: 120_000 }, () => {
@@ -92,6 +99,18 @@ describe("pointSafety agrees with the full pipeline on a one-run design", { time
     compare(doc, at, { ...wet, waterFraction: 0 });
     expect(at(wet).blocking.some((b) => b.code === "TL-R04")).toBe(true);
     expect(at({ ...wet, waterFraction: 0 }).blocking.some((b) => b.code === "TL-R04")).toBe(false);
+  });
+  it("on 150 random points with concentration as a factor (the 4 mL vial's 0.5–2 mL range; 0.2 mmol needs 0.1–0.4 M)", () => {
+    const doc = withConcentration();
+    const at = pointSafety(doc);
+    const box = { ...BOX, conc: [0.02, 0.8] as [number, number] };
+    let volumeLimits = 0;
+    for (const p of points("tareline-point-safety-3", 150, box)) {
+      compare(doc, at, p);
+      if (at(p).limits.some((l) => l.code.startsWith("vessel_volume"))) volumeLimits++;
+    }
+    // 0.2 mmol / 0.02–0.8 M = 10–0.25 mL (hand arithmetic): both sides of 0.5–2 mL occur.
+    expect(volumeLimits).toBeGreaterThan(0);
   });
   it("finds the autoignition and pressure limits of the hazard engine, not a hand-written bound", () => {
     // 1,4-dioxane autoignition 180 °C (from memory) − the lab's 50 °C margin = 130 °C.
