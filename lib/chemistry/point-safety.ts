@@ -15,6 +15,7 @@
  */
 import { AppError, parseOrThrow } from "../errors/app-error";
 import { cautionContext, evaluateRun } from "../hazards/plan-cautions/run-cautions";
+import type { VialResult } from "../hazards/plan-cautions/vial-checks";
 import { cautionSettingsSchema, runTemperatureSchema } from "../hazards/plan-cautions/schema";
 import { cautionProfiles, cautionRun, cautionSettings, type CautionRunSource } from "./caution-input";
 import { dispensingContext, fitStocks, type Dispense, type RunAmounts } from "./dispensing";
@@ -73,16 +74,20 @@ export function pointSafety(input: unknown): (natural: Readonly<Record<string, n
   const profiles = cautionProfiles(doc);
   const sources = infos.map((i) => ({ source: i.component.id }));
   const { maxUl, minUl } = vesselVolumeRangeUl(vessel);
+  const tIndex = doc.factors.findIndex((f) => f.binding.kind === "temperature");
+  const others = doc.factors.filter((_f, i) => i !== tIndex).map((f) => f.name);
 
-  return (natural) => {
-    const blocking: SafetyFinding[] = [];
+  /**
+   * Everything about a point but its temperature: the stoichiometry, the vessel's volume
+   * range, the dispensing planner and the vial's contents. A grid repeats these along its
+   * temperature axis, so each distinct case is computed once (exact: keyed by the values).
+   */
+  const recipeStage = (natural: Readonly<Record<string, number>>): RecipeCase => {
     const limits: SafetyFinding[] = [];
     const problems: RunProblem[] = [];
     const cond = runConditions(doc, natural as Record<string, number>, 1, problems);
     for (const p of problems) limits.push({ code: p.key.startsWith("nonpositive") ? "amount_not_positive" : "fraction_out_of_range", message: p.message, ...(p.component ? { component: p.component } : {}) });
-    const t = runTemperatureSchema.safeParse(cond.temperatureC);
-    if (!t.success) limits.push({ code: "temperature_not_accepted", message: `${cond.temperatureC} °C: ${t.error.issues[0]?.message ?? "not accepted"}` });
-    if (limits.length > 0) return { blocking, limits };
+    if (limits.length > 0) return { limits, run: null, fatal: true };
 
     const amounts = componentAmounts(infos, cond);
     const volume = vesselVolumeProblem(vessel, cond.finalVolumeUl);
@@ -103,7 +108,7 @@ export function pointSafety(input: unknown): (natural: Readonly<Record<string, n
     } catch (e) {
       if (e instanceof AppError && e.code === "infeasible") {
         limits.push({ code: "neat_over_volume", message: e.message });
-        return { blocking, limits };
+        return { limits, run: null, fatal: false };
       }
       throw e;
     }
@@ -138,12 +143,48 @@ export function pointSafety(input: unknown): (natural: Readonly<Record<string, n
     };
     // cautionRun writes the parsed shape itself (every component with its statements, the
     // components always listed), so the per-point run skips the schema's parse.
-    const run = cautionRun(doc, profiles, source) as PlanRun;
+    return { limits, run: cautionRun(doc, profiles, source) as PlanRun, fatal: false };
+  };
+
+  const recipeCases = new Map<string, RecipeCase>();
+  const vialCache = new Map<string, VialResult>();
+  const temperatureOf = (natural: Readonly<Record<string, number>>): number => {
+    if (tIndex < 0) return doc.recipe.temperatureC;
+    const f = doc.factors[tIndex]!;
+    const raw = natural[f.name];
+    if (raw === undefined) throw AppError.field(`factors.${tIndex}.name`, `run 1 has no value for factor "${f.name}"`);
+    return toCanonical("temperature", raw, f.unit, `factors.${tIndex}.unit`);
+  };
+
+  return (natural) => {
+    const temperatureC = temperatureOf(natural);
+    let key = "";
+    for (const name of others) key += `${natural[name]}|`;
+    let rc = recipeCases.get(key);
+    if (!rc) {
+      rc = recipeStage(natural);
+      if (recipeCases.size >= 4096) recipeCases.clear();
+      recipeCases.set(key, rc);
+    }
+    const blocking: SafetyFinding[] = [];
+    const limits: SafetyFinding[] = [...rc.limits];
+    const t = runTemperatureSchema.safeParse(temperatureC);
+    if (!t.success) limits.push({ code: "temperature_not_accepted", message: `${temperatureC} °C: ${t.error.issues[0]?.message ?? "not accepted"}` });
+    if (!t.success || rc.fatal || !rc.run) return { blocking, limits };
     // Messages are written only when read (a grid of points rarely reads them).
-    for (const f of evaluateRun(ctx, run, 0).firings) {
+    if (vialCache.size >= 20000) vialCache.clear();
+    for (const f of evaluateRun(ctx, { ...rc.run, temperatureC }, 0, vialCache).firings) {
       if (f.severity === "blocking") blocking.push(lazyFinding(f));
       else if (f.code === "TL-T01" || f.code === "TL-T02") limits.push(lazyFinding(f));
     }
     return { blocking, limits };
   };
+}
+
+/** What a point's non-temperature values give: its limits, and the run the caution rules see (temperature set per point). */
+interface RecipeCase {
+  limits: SafetyFinding[];
+  run: PlanRun | null;
+  /** The recipe has no meaning here (a non-positive amount or a fraction out of range). */
+  fatal: boolean;
 }

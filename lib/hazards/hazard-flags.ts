@@ -26,15 +26,19 @@ export const GHS_STATEMENT_PATTERN = /^(H\d{3}[A-Za-z]*|EUH\d{3}[A-Za-z]*|P\d{3}
 
 /** Trims a statement code and writes its prefix in capitals ("h225" → "H225"; suffixes such as "Fd" keep their case). */
 export function normalizeGhsStatement(code: string): string {
+  // Fast path (the common case, parsed once per vial and component): already trimmed,
+  // prefix in capitals.
+  const first = code.charCodeAt(0);
+  const last = code.charCodeAt(code.length - 1);
+  if (last > 32 && (first === 72 /* H */ || first === 80 /* P */ || (first === 69 /* E */ && code.startsWith("EUH")))) return code;
   return code.trim().replace(/^(euh|h|p)/i, (m) => m.toUpperCase());
 }
 
 /** One GHS statement code, e.g. "H225", "EUH019", "H360Fd" or "P210". */
 export const ghsStatementSchema = z
   .string()
-  .max(40)
   .overwrite(normalizeGhsStatement)
-  .regex(GHS_STATEMENT_PATTERN, "must be a GHS statement code such as H225, EUH019 or P210");
+  .refine((s) => s.length <= 40 && GHS_STATEMENT_PATTERN.test(s), "must be a GHS statement code such as H225, EUH019 or P210");
 
 /** A list of GHS statement codes. */
 export const ghsStatementsSchema = z.array(ghsStatementSchema).max(80);

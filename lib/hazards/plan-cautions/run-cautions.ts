@@ -29,6 +29,8 @@ export interface CautionContext {
   today: string;
   find(name: string): SolventRecord | undefined;
   componentCache: Map<string, CachedComponent[]>;
+  /** The same component objects seen again (runs built once and reused, e.g. by pointSafety). */
+  componentSeen: [WeakMap<PlanComponent, CachedComponent>, WeakMap<PlanComponent, CachedComponent>];
   solventCache: Map<string, { profile: HazardProfile; firings: Firing[] }>;
 }
 
@@ -45,6 +47,7 @@ export function cautionContext(settings: CautionSettings): CautionContext {
       return findCache.get(name);
     },
     componentCache: new Map(),
+    componentSeen: [new WeakMap(), new WeakMap()],
     solventCache: new Map(),
   };
 }
@@ -119,14 +122,17 @@ export function evaluateRun(ctx: CautionContext, run: PlanRun, runIndex: number,
   const inVial: HazardProfile[] = [];
   const components: RunEvaluation["components"] = [];
   for (const c of run.components) {
-    let cached = findCached(ctx.componentCache, c, concentrates);
-    if (!cached) {
+    const seen = ctx.componentSeen[concentrates ? 1 : 0];
+    let cached = seen.get(c) ?? findCached(ctx.componentCache, c, concentrates);
+    if (cached) seen.set(c, cached);
+    else {
       const profile = profileOf(c.name, c.ghs, c, ctx.find(c.name));
       const item: Material = { p: profile, openedOn: c.openedOn, peroxideTestedOn: c.peroxideTestedOn, receivedOn: c.receivedOn, expiresOn: c.expiresOn };
       cached = { c, concentrates, profile, firings: ownFirings(item, concentrates, p.thresholds, ctx.today) };
       const list = ctx.componentCache.get(c.name);
       if (!list) ctx.componentCache.set(c.name, [cached]);
       else if (list.length < 32) list.push(cached); // bounded: the scan stays short
+      seen.set(c, cached);
     }
     for (const f of cached.firings) firings.push(f);
     inVial.push(cached.profile);

@@ -112,6 +112,17 @@ describe("pointSafety agrees with the full pipeline on a one-run design", { time
     // 0.2 mmol / 0.02–0.8 M = 10–0.25 mL (hand arithmetic): both sides of 0.5–2 mL occur.
     expect(volumeLimits).toBeGreaterThan(0);
   });
+  it("on a grid (the same recipe at many temperatures, the same vial at many base amounts), point by point", () => {
+    // A grid repeats values along its axes, and pointSafety computes each repeated part
+    // once: every point must still agree with the pipeline run on that point alone.
+    const doc = withBuLi();
+    const at = pointSafety(doc);
+    for (const temperature of [-90, 25, 100, 129, 131, 160, 330]) {
+      for (const waterFraction of [0, 0.1, 0.3]) {
+        for (const baseEquiv of [0.5, 3]) compare(doc, at, { temperature, baseEquiv, boronicEquiv: 1.3, pdLoading: 1, waterFraction });
+      }
+    }
+  });
   it("finds the autoignition and pressure limits of the hazard engine, not a hand-written bound", () => {
     // 1,4-dioxane autoignition 180 °C (from memory) − the lab's 50 °C margin = 130 °C.
     const at = pointSafety(example());
