@@ -28,6 +28,15 @@ function safetyGrid() {
   return { at, points };
 }
 
+/** The same check at 10 201 scattered points of the studied box (no value repeats: nothing is shared between points). */
+function safetyScatter() {
+  const { at } = safetyGrid();
+  const rnd = lcg(11);
+  const box: Array<[string, number, number]> = [["temperature", 20, 220], ["baseEquiv", 1.5, 3], ["boronicEquiv", 1.1, 1.5], ["pdLoading", 0.5, 2], ["waterFraction", 0, 0.5]];
+  const points = Array.from({ length: 10201 }, () => Object.fromEntries(box.map(([k, lo, hi]) => [k, lo + ((hi - lo) * (rnd() + 1)) / 2])));
+  return { at, points };
+}
+
 const FACTOR_NAMES = ["temperature", "baseEquiv", "boronicEquiv", "pdLoading", "waterFraction"];
 
 /** A deterministic pseudo-random sequence in [−1, 1] (Park–Miller minimal standard). */
@@ -106,6 +115,19 @@ export const cases: BenchCase[] = [
     setup: safetyGrid,
     run: (state) => {
       const { at, points } = state as ReturnType<typeof safetyGrid>;
+      let blocked = 0;
+      for (const p of points) if (at(p).blocking.length > 0) blocked++;
+      return blocked;
+    },
+  },
+  {
+    name: "chemistry: pointSafety at 10 201 scattered points (nothing shared)",
+    targetMs: 200,
+    warmup: 3,
+    repeat: 11,
+    setup: safetyScatter,
+    run: (state) => {
+      const { at, points } = state as ReturnType<typeof safetyScatter>;
       let blocked = 0;
       for (const p of points) if (at(p).blocking.length > 0) blocked++;
       return blocked;

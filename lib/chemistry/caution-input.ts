@@ -70,18 +70,23 @@ export type CautionRunSource = Pick<RunSheet["runs"][number], "run" | "temperatu
   components: ReadonlyArray<{ source: string }>;
 };
 
-/** One run of the caution input: its conditions and every component in the vial. */
-export function cautionRun(doc: PlanDocument, profiles: CautionProfiles, r: CautionRunSource): CautionRun {
+/**
+ * One run of the caution input: its conditions and every component in the vial, with the
+ * volume dispensed of each (`withVolumes: false` leaves the volumes out — they matter only
+ * to the plan-wide second-person rule — and reuses the profile objects themselves).
+ */
+export function cautionRun(doc: PlanDocument, profiles: CautionProfiles, r: CautionRunSource, withVolumes = true): CautionRun {
   const components: CautionComponent[] = doc.recipe.components.map((_c, ci) => {
+    const profile = profiles.components[ci]!;
+    if (!withVolumes) return profile;
     const row = r.components[ci]!;
     const carrier = r.dispense.find((d) => d.source === row.source);
-    const profile = profiles.components[ci]!;
     return carrier && carrier.volumeUl !== null && carrier.kind !== "solid" ? { ...profile, volumeUl: carrier.volumeUl } : profile;
   });
   doc.recipe.solvents.forEach((s, si) => {
     const sv = r.solvents.find((x) => x.name === s.name);
     if (!sv || sv.volumeFraction <= 0) return;
-    components.push({ ...profiles.solvents[si]!, volumeUl: sv.volumeUl });
+    components.push(withVolumes ? { ...profiles.solvents[si]!, volumeUl: sv.volumeUl } : profiles.solvents[si]!);
   });
   const run: CautionRun = {
     run: r.run,

@@ -143,7 +143,7 @@ export function pointSafety(input: unknown): (natural: Readonly<Record<string, n
     };
     // cautionRun writes the parsed shape itself (every component with its statements, the
     // components always listed), so the per-point run skips the schema's parse.
-    return { limits, run: cautionRun(doc, profiles, source) as PlanRun, fatal: false };
+    return { limits, run: cautionRun(doc, profiles, source, false) as PlanRun, fatal: false };
   };
 
   const recipeCases = new Map<string, RecipeCase>();
