@@ -5,6 +5,7 @@ import { adjustAmountSchema, containerInputSchema, containerQuerySchema, contain
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Chemical, Container, Location } from "@/lib/server/models";
+import { impliedHazards } from "@/lib/hazards/hazard-flags";
 import { peroxideTestDue, type PeroxideIntervals } from "../peroxide";
 import { formatAmount, toBase, unitInfo } from "../units";
 import { amountView, appendLedger, heldBase, heldByContainer, peroxideIntervalsFor, uniqueToConflict } from "./common";
@@ -38,7 +39,7 @@ export function containerRow(c: Container, held: bigint, intervals: PeroxideInte
     flags: {
       pyrophoric: chem?.pyrophoric ?? false,
       waterReactive: chem?.waterReactive ?? false,
-      peroxideClass: chem?.peroxideClass ?? null,
+      peroxideClass: impliedHazards({ ghs: chem?.ghsStatements ?? [], peroxideClass: chem?.peroxideClass ?? null }).peroxideClass,
       peroxideTestDue: peroxideTestDue({ peroxideClass: chem?.peroxideClass ?? null, ghs: chem?.ghsStatements ?? [], openedOn: c.openedOn, receivedOn: c.receivedOn, testedOn: c.peroxideTestedOn, expiresOn: c.expiresOn, intervals }),
     },
   };
