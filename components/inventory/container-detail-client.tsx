@@ -4,7 +4,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { adjustAmountSchema, type AdjustAmountInput, type LedgerRow, type ReservationRow } from "@/lib/schemas/inventory";
+import { adjustAmountSchema, type AdjustAmountInput, type LedgerRow, type ReservationRow } from "@/inventory/schemas";
 import { useContainer, type ContainerDetail, type LocationRow } from "@/lib/hooks/use-inventory";
 import { postJson } from "@/lib/client/fetch-json";
 import { STOCK_UNITS } from "@/inventory/units";

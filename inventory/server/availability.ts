@@ -1,7 +1,7 @@
 import "server-only";
 import { Op } from "sequelize";
 import { parseOrThrow } from "@/lib/errors/app-error";
-import { availabilityInputSchema } from "@/lib/schemas/inventory";
+import { availabilityInputSchema } from "@/inventory/schemas";
 import { Chemical, Container } from "@/lib/server/models";
 import { proposeContainers, type ChemicalFacts, type ContainerFacts } from "../availability";
 import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";

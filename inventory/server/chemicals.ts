@@ -1,7 +1,7 @@
 import "server-only";
 import { QueryTypes } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { chemicalInputSchema, chemicalUpdateSchema, type ChemicalRow, type ChemicalValues } from "@/lib/schemas/inventory";
+import { chemicalInputSchema, chemicalUpdateSchema, type ChemicalRow, type ChemicalValues } from "@/inventory/schemas";
 import { db, transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Chemical, SafetyDataSheet } from "@/lib/server/models";

@@ -1,7 +1,7 @@
 import "server-only";
 import { Op, type Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { consumeInputSchema, releaseInputSchema, planRefSchema } from "@/lib/schemas/inventory";
+import { consumeInputSchema, releaseInputSchema, planRefSchema } from "@/inventory/schemas";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Container, Reservation } from "@/lib/server/models";

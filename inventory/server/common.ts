@@ -5,7 +5,7 @@ import { AppError } from "@/lib/errors/app-error";
 import { Lab, StockLedgerEntry } from "@/lib/server/models";
 import { labThresholdsSchema } from "@/lib/hazards/thresholds";
 import type { LedgerKind } from "@/models/stock-ledger-entry";
-import type { AmountView } from "@/lib/schemas/inventory";
+import type { AmountView } from "@/inventory/schemas";
 import type { PeroxideIntervals } from "../peroxide";
 import { formatAmount, type Dimension } from "../units";
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { Op, col, fn, type Order, type WhereOptions } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { adjustAmountSchema, containerInputSchema, containerQuerySchema, containerUpdateSchema, type ContainerQuery, type ContainerRow } from "@/lib/schemas/inventory";
+import { adjustAmountSchema, containerInputSchema, containerQuerySchema, containerUpdateSchema, type ContainerQuery, type ContainerRow } from "@/inventory/schemas";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Chemical, Container, Location } from "@/lib/server/models";

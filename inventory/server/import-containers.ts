@@ -1,7 +1,7 @@
 import "server-only";
 import { Op } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { importRequestSchema } from "@/lib/schemas/inventory";
+import { importRequestSchema } from "@/inventory/schemas";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Chemical, Container, Location } from "@/lib/server/models";

@@ -1,6 +1,6 @@
 import "server-only";
 import { AppError } from "@/lib/errors/app-error";
-import type { LedgerRow, ReservationRow } from "@/lib/schemas/inventory";
+import type { LedgerRow, ReservationRow } from "@/inventory/schemas";
 import { Chemical, Container, Reservation, StockLedgerEntry, User } from "@/lib/server/models";
 import { Op } from "sequelize";
 import { amountView } from "./common";

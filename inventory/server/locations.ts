@@ -1,6 +1,6 @@
 import "server-only";
 import { parseOrThrow } from "@/lib/errors/app-error";
-import { locationInputSchema } from "@/lib/schemas/inventory";
+import { locationInputSchema } from "@/inventory/schemas";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Location } from "@/lib/server/models";

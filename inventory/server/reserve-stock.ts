@@ -1,7 +1,7 @@
 import "server-only";
 import { Op } from "sequelize";
 import { AppError, parseOrThrow, type FieldIssue } from "@/lib/errors/app-error";
-import { reserveInputSchema, type ReservationRow } from "@/lib/schemas/inventory";
+import { reserveInputSchema, type ReservationRow } from "@/inventory/schemas";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Container, Reservation } from "@/lib/server/models";
