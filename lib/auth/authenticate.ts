@@ -3,7 +3,7 @@ import bcrypt from "bcryptjs";
 import { Op } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { SignInAttempt, User } from "@/lib/server/models";
-import { signInSchema } from "@/lib/schemas/account";
+import { signInSchema } from "@/lib/members/schemas";
 
 /** The lockout rule: this many failures in a row within the window refuse further attempts. */
 export const LOCKOUT = { maxFailures: 10, windowMinutes: 15 } as const;

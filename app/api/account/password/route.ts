@@ -1,6 +1,6 @@
 import { requireUser } from "@/lib/auth/session";
 import { readJson, route } from "@/lib/api/route";
-import { changePassword } from "@/lib/members/change-password";
+import { changePassword } from "@/lib/members/server/change-password";
 
 export const POST = route(async (req) => {
   const user = await requireUser();

@@ -1,7 +1,7 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { readJson, route } from "@/lib/api/route";
-import { changeMemberRole } from "@/lib/members/change-member-role";
-import { removeMember } from "@/lib/members/remove-member";
+import { changeMemberRole } from "@/lib/members/server/change-member-role";
+import { removeMember } from "@/lib/members/server/remove-member";
 
 type Ctx = { params: Promise<{ lab: string; membershipId: string }> };
 

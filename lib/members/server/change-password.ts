@@ -1,6 +1,6 @@
 import "server-only";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { changePasswordSchema } from "@/lib/schemas/account";
+import { changePasswordSchema } from "@/lib/members/schemas";
 import { hashPassword, verifyPassword } from "@/lib/auth/authenticate";
 import { audit } from "@/lib/server/audit";
 import { User } from "@/lib/server/models";

@@ -1,7 +1,7 @@
 import "server-only";
 import { Op } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { acceptInvitationSchema } from "@/lib/schemas/account";
+import { acceptInvitationSchema } from "@/lib/members/schemas";
 import { hashPassword } from "@/lib/auth/authenticate";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";

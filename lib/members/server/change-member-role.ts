@@ -1,6 +1,6 @@
 import "server-only";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { changeRoleSchema } from "@/lib/schemas/membership";
+import { changeRoleSchema } from "@/lib/members/schemas";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Membership } from "@/lib/server/models";

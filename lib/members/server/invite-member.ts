@@ -1,7 +1,7 @@
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { inviteMemberSchema } from "@/lib/schemas/membership";
+import { inviteMemberSchema } from "@/lib/members/schemas";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";

@@ -1,6 +1,6 @@
 import "server-only";
 import { Membership, User } from "@/lib/server/models";
-import type { MembershipRow } from "@/lib/schemas/membership";
+import type { MembershipRow } from "@/lib/members/schemas";
 
 /** Every member of one lab, by name. */
 export async function listMembers({ labId }: { labId: string }): Promise<MembershipRow[]> {
