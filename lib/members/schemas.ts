@@ -4,6 +4,15 @@
  */
 import { z } from "zod";
 import { ROLES } from "@/lib/auth/roles";
+import { safeString, text } from "@/lib/schemas/text";
+
+/** The longest e-mail address accepted (RFC 5321 limits a path to 256 octets; the column holds 320). */
+export const MAX_EMAIL_LENGTH = 254;
+
+/** An e-mail address as typed: trimmed, lower-cased, bounded, then checked. */
+export const emailSchema = text(MAX_EMAIL_LENGTH)
+  .toLowerCase()
+  .pipe(z.email({ message: "Enter a valid e-mail address" }));
 
 export const roleSchema = z.enum(ROLES, { message: "Choose one of the lab's roles" });
 
@@ -18,7 +27,7 @@ export const membershipSchema = z.object({
 export type MembershipRow = z.infer<typeof membershipSchema>;
 
 export const inviteMemberSchema = z.object({
-  email: z.email({ message: "Enter a valid e-mail address" }).transform((e) => e.trim().toLowerCase()),
+  email: emailSchema,
   role: roleSchema,
 });
 export type InviteMemberInput = z.input<typeof inviteMemberSchema>;
@@ -26,34 +35,27 @@ export type InviteMemberInput = z.input<typeof inviteMemberSchema>;
 export const changeRoleSchema = membershipSchema.pick({ role: true });
 
 export const signInSchema = z.object({
-  email: z
-    .string()
-    .trim()
-    .toLowerCase()
-    .pipe(z.email({ message: "Enter a valid e-mail address" })),
-  password: z.string().min(1, "Enter your password"),
+  email: emailSchema,
+  password: safeString(1000).min(1, "Enter your password"),
 });
 export type SignInInput = z.input<typeof signInSchema>;
 
-export const passwordSchema = z
-  .string()
-  .min(10, "Use at least 10 characters")
-  .max(200, "Use at most 200 characters");
+export const passwordSchema = safeString(200).min(10, "Use at least 10 characters");
 
 export const changePasswordSchema = z
   .object({
-    currentPassword: z.string().min(1, "Enter your current password"),
+    currentPassword: safeString(1000).min(1, "Enter your current password"),
     newPassword: passwordSchema,
-    confirmPassword: z.string(),
+    confirmPassword: safeString(1000),
   })
   .refine((v) => v.newPassword === v.confirmPassword, { path: ["confirmPassword"], message: "The two new passwords differ" });
 export type ChangePasswordInput = z.input<typeof changePasswordSchema>;
 
 export const acceptInvitationSchema = z
   .object({
-    name: z.string().trim().min(1, "Enter your name").max(200),
+    name: text(200).min(1, "Enter your name"),
     password: passwordSchema,
-    confirmPassword: z.string(),
+    confirmPassword: safeString(1000),
   })
   .refine((v) => v.password === v.confirmPassword, { path: ["confirmPassword"], message: "The two passwords differ" });
 export type AcceptInvitationInput = z.input<typeof acceptInvitationSchema>;

@@ -1,9 +1,10 @@
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
+import type { Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { inviteMemberSchema } from "@/lib/members/schemas";
 import { ROLE_LABELS } from "@/lib/auth/roles";
-import { transaction } from "@/lib/server/db";
+import { inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { sendMail } from "@/lib/server/mail";
 import { Invitation, Lab, Membership, User } from "@/lib/server/models";
@@ -17,12 +18,13 @@ export function hashToken(token: string): string {
 /**
  * Invites someone to a lab by e-mail with a role: stores the hash of a random token,
  * audits it, and mails a link where the invitee sets a password. Refuses (conflict)
- * an address that is already a member.
+ * an address that is already a member. The records are written in the caller's
+ * transaction `t` when given.
  */
-export async function inviteMember(opts: { labId: string; actorUserId: string; appUrl: string; input: unknown }) {
+export async function inviteMember(opts: { labId: string; actorUserId: string; appUrl: string; input: unknown }, t?: Transaction) {
   const { email, role } = parseOrThrow(inviteMemberSchema, opts.input);
   const token = randomBytes(32).toString("base64url");
-  const { invitation, lab } = await transaction(async (t) => {
+  const { invitation, lab } = await inTransaction(t, async (t) => {
     const lab = await Lab.findByPk(opts.labId, { transaction: t });
     if (!lab) throw new AppError("not_found", "No such lab.");
     const existing = await User.findOne({ where: { email }, transaction: t });
