@@ -351,6 +351,8 @@ export type CsvRowValues = z.output<typeof csvRowSchema>;
 
 /** The largest container CSV accepted, in characters. */
 export const MAX_IMPORT_CHARS = 5_000_000;
+/** The import routes' body cap: a 5-million-character CSV as a JSON string (escapes included), with room to spare. */
+export const IMPORT_BODY_LIMIT = 12_000_000;
 export const importRequestSchema = z.object({
   csv: safeString(MAX_IMPORT_CHARS).min(1, "choose a CSV file"),
   mapping: z.partialRecord(z.enum(CSV_FIELDS), z.union([text(200), z.null()])).optional(),

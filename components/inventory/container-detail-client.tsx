@@ -53,7 +53,7 @@ export function ContainerDetailClient({ labSlug, canManage, initial, locations, 
 
   async function patch(body: Record<string, unknown>, done: string) {
     setMessage(null);
-    const res = await postJson(`/api/labs/${labSlug}/containers/${c.id}`, body, "PATCH");
+    const res = await postJson(`/api/labs/${labSlug}/containers/${c.id}`, { ...body, version: c.version }, "PATCH");
     setMessage(res.ok ? { tone: "ok", text: done } : { tone: "blocks", text: res.error.message });
     await mutate();
   }
