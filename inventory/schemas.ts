@@ -124,17 +124,14 @@ const DATE_YEARS = { first: 1900, last: 2200 } as const;
  * A calendar date written YYYY-MM-DD: a real day (no 2027-02-30) of a year from 1900 to
  * 2200. The one date rule of the inventory (forms, API and CSV import).
  */
-export const isoDateSchema = safeString(10)
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "use YYYY-MM-DD")
-  .refine((s) => {
-    const [y, m, d] = s.split("-").map(Number) as [number, number, number];
-    const date = new Date(Date.UTC(y, m - 1, d));
-    return date.getUTCFullYear() === y && date.getUTCMonth() === m - 1 && date.getUTCDate() === d;
-  }, "not a real date")
-  .refine((s) => {
-    const y = Number(s.slice(0, 4));
-    return y >= DATE_YEARS.first && y <= DATE_YEARS.last;
-  }, `use a year from ${DATE_YEARS.first} to ${DATE_YEARS.last}`);
+export const isoDateSchema = safeString(40).superRefine((s, ctx) => {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(s);
+  if (!m) return void ctx.addIssue({ code: "custom", message: "use YYYY-MM-DD" });
+  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  if (y < DATE_YEARS.first || y > DATE_YEARS.last) return void ctx.addIssue({ code: "custom", message: `use a year from ${DATE_YEARS.first} to ${DATE_YEARS.last}` });
+  const date = new Date(Date.UTC(y, mo - 1, d));
+  if (date.getUTCFullYear() !== y || date.getUTCMonth() !== mo - 1 || date.getUTCDate() !== d) ctx.addIssue({ code: "custom", message: "not a real date" });
+});
 const isoDate = isoDateSchema;
 const optionalDate = z
   .union([isoDate, z.literal(""), z.null()])
