@@ -27,7 +27,7 @@ export function errorResponse(error: unknown): Response {
 }
 
 export interface RouteOptions {
-  /** What a state-changing request's body is: "json" (the default), "multipart" (an upload) or "none". */
+  /** What a state-changing request's body is: "json" (the default), "multipart" (an upload) or "none" (a body sent anyway is refused). */
   body?: "json" | "multipart" | "none";
   /** The largest body accepted, in bytes (default DEFAULT_BODY_LIMIT, 1 MB). */
   maxBytes?: number;
@@ -63,7 +63,12 @@ export async function guardRequest(request: Request, ctx: RouteContext | undefin
   checkOrigin(request);
   const params = ctx?.params ? await ctx.params : undefined;
   if (params) checkParams(params);
-  if (!BODY_METHODS.has(request.method.toUpperCase()) || options.body === "none") return;
+  if (!BODY_METHODS.has(request.method.toUpperCase())) return;
+  if (options.body === "none") {
+    const declared = Number(request.headers.get("content-length") ?? "0");
+    if (declared > 0 || request.headers.has("transfer-encoding")) throw new AppError("invalid_input", "This request takes no body.", [{ path: "", message: "send no body" }]);
+    return;
+  }
   const limit = options.maxBytes ?? DEFAULT_BODY_LIMIT;
   if (options.body === "multipart") {
     if (!contentTypeIs(request, MULTIPART_TYPE)) throw wrongType("multipart/form-data");
