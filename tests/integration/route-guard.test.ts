@@ -34,7 +34,8 @@ async function errorOf(res: Response) {
 describe("Origin and Sec-Fetch-Site", () => {
   it("refuses a state-changing request from another site (403 naming the Origin header) and never runs the handler", async () => {
     const { fn, seen } = handler();
-    for (const headers of [{ origin: "https://evil.example" }, { origin: "https://evil.example", "sec-fetch-site": "cross-site" }, { "sec-fetch-site": "cross-site" }, { origin: "null" }]) {
+    const refused: Array<Record<string, string>> = [{ origin: "https://evil.example" }, { origin: "https://evil.example", "sec-fetch-site": "cross-site" }, { "sec-fetch-site": "cross-site" }, { origin: "null" }];
+    for (const headers of refused) {
       const res = await fn(post(headers), ctx());
       expect(res.status, JSON.stringify(headers)).toBe(403);
       expect((await errorOf(res)).issues.map((i) => i.path)).toEqual(["headers.origin"]);
@@ -44,7 +45,7 @@ describe("Origin and Sec-Fetch-Site", () => {
 
   it("lets through the app's own pages, scripts without either header, and lab API tokens", async () => {
     const { fn, seen } = handler();
-    const allowed = [{ origin: APP }, { "sec-fetch-site": "same-origin", origin: APP }, { "sec-fetch-site": "same-origin" }, {}, { authorization: "Bearer tl_example", origin: "https://pipeline.example" }];
+    const allowed: Array<Record<string, string>> = [{ origin: APP }, { "sec-fetch-site": "same-origin", origin: APP }, { "sec-fetch-site": "same-origin" }, {}, { authorization: "Bearer tl_example", origin: "https://pipeline.example" }];
     for (const headers of allowed) expect((await fn(post(headers), ctx())).status, JSON.stringify(headers)).toBe(200);
     expect(seen).toHaveLength(allowed.length);
   });
