@@ -7,6 +7,12 @@
  */
 import { z } from "zod";
 
+// Zod's optional JIT compiles object parsers with `new Function`, and probes for it when a
+// schema is built; the Content-Security-Policy (next.config.mjs) forbids eval, so in the
+// browser the probe is a policy violation. Every schema module imports this one first, so
+// the interpreter is chosen before any object schema exists.
+z.config({ jitless: true });
+
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 const NOT_STORABLE = new RegExp(`\u0000|${LONE_SURROGATE.source}`, "g");
 
