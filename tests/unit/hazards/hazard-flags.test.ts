@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { componentInfos } from "@/lib/chemistry/stoichiometry";
 import { planDocumentSchema } from "@/lib/chemistry/plan-document";
-import { chemicalInputSchema, containerUpdateSchema } from "@/lib/schemas/inventory";
+import { chemicalInputSchema, containerUpdateSchema } from "@/inventory/schemas";
 import { DEFAULT_EQUIPMENT, DEFAULT_LAB_THRESHOLDS, DEFAULT_VESSELS, evaluatePlanCautions, impliedHazards, isoDateSchema, statementsWithStem } from "@/lib/hazards";
 import { planCautionInputSchema } from "@/lib/hazards/plan-cautions";
 import { suzukiPlan } from "../chemistry/fixtures";
@@ -50,10 +50,10 @@ describe("GHS statements → hazard flags (one mapping)", () => {
 });
 
 describe("one ISO-date schema (plan document, caution input, inventory)", () => {
-  // Hand check: February 2026 has 28 days; there is no year 0000 in the Gregorian calendar
-  // as written in ISO 8601 without expansion (Tareline accepts 0001–9999).
-  const bad = ["2026-02-30", "0000-01-01", "2025-02-29", "2026-13-01", "2026-1-01", "2026-01-01T00:00"];
-  const good = ["2024-02-29", "2026-12-31", "0001-01-01"];
+  // Hand check: February 2026 has 28 days, 2025 is no leap year, 2024 is; there is no year
+  // 0000 (PostgreSQL refuses it), and Tareline accepts the years 1900–2200.
+  const bad = ["2026-02-30", "0000-01-01", "1899-12-31", "2201-01-01", "2025-02-29", "2026-13-01", "2026-1-01", "2026-01-01T00:00"];
+  const good = ["2024-02-29", "2026-12-31", "1900-01-01", "2000-02-29"];
   it("rejects dates that do not exist and accepts real ones", () => {
     for (const d of bad) expect(isoDateSchema.safeParse(d).success, d).toBe(false);
     for (const d of good) expect(isoDateSchema.safeParse(d).success, d).toBe(true);
