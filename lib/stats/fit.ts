@@ -5,17 +5,18 @@
  * units; per-term estimate, standard error, t, p, 95 % interval; R², adjusted R²,
  * predicted R² from PRESS, RMSE; ANOVA with lack of fit against pure error; the
  * curvature test from centre points; backward elimination respecting hierarchy;
- * residual diagnostics; canonical analysis for second-order models.
+ * residual diagnostics. Canonical analysis of a second-order fit is the caller's
+ * (lib/surface/response-surface.ts): statistics does not depend on the surface engine.
  */
 import { Matrix } from "ml-matrix";
 import { AppError, parseOrThrow } from "../errors/app-error";
-import { codeValue, decodeValue, type Factor } from "../doe/factors";
-import { canonicalAnalysis, type SurfaceKind } from "../surface/canonical";
-import { predictAt } from "../surface/predict";
+import { codeValue, decodeValue } from "../doe/factors";
+import type { FittedModel } from "./fitted-model";
+import { predictAt } from "./predict";
 import { fitInputSchema, type FitInput } from "./fit-schema";
 import { fUpperP, tQuantile, tTwoSidedP } from "./distributions";
 import { fullFitOfSubset, leastSquaresQR, refitSubset, type LeastSquaresFit } from "./least-squares";
-import { buildTerms, isSquareTerm, modelRow, termContains, type Term } from "./model-terms";
+import { buildTerms, modelRow, termContains, type Term } from "./model-terms";
 
 /** One estimated term (CONTRACT.md `fit` output). Null statistics when no residual df. */
 export interface TermEstimate {
@@ -56,14 +57,6 @@ export interface Diagnostic {
   cooksDistance: number | null;
 }
 
-export interface CanonicalOutput {
-  stationaryPoint: { coded: Record<string, number>; natural: Record<string, number> } | null;
-  predicted: number | null;
-  eigenvalues: number[];
-  eigenvectors: Record<string, number>[];
-  kind: SurfaceKind;
-}
-
 export interface CurvatureTest {
   ss: number;
   df: 1;
@@ -88,7 +81,6 @@ export interface FitOutput {
     pureError: AnovaRow | null;
     total: { df: number; ss: number };
   };
-  canonical: CanonicalOutput | null;
   curvature: CurvatureTest | null;
   transform: "none" | "ln";
   diagnostics: Diagnostic[];
@@ -104,23 +96,6 @@ export interface PointPrediction {
   stdError: number | null;
   ci95: [number, number] | null;
   pi95: [number, number] | null;
-}
-
-/** A fitted model kept for prediction and optimisation (coded units, model scale). */
-export interface FittedModel {
-  factors: Factor[];
-  terms: Term[];
-  coefficients: number[];
-  /** (X'X)⁻¹ for the terms. */
-  covUnscaled: number[][];
-  /** Residual mean square s² (null when dfResidual = 0). */
-  s2: number | null;
-  dfResidual: number;
-  transform: "none" | "ln";
-  /** The coded design points, for the design's region. */
-  codedRuns: number[][];
-  /** The observed responses (original scale). */
-  observed: number[];
 }
 
 /** The coded matrix of the runs (rows in the order given) and the responses. */
@@ -207,12 +182,18 @@ function modelMatrix(terms: readonly Term[], X: readonly number[][]): Matrix {
   return M;
 }
 
+/** p-values closer than this count as tied in backward elimination. */
+export const P_TIE_TOLERANCE = 1e-9;
+
 /**
  * Backward elimination at level α (Montgomery §10.3): repeatedly drops the term with
  * the largest p-value above α; with `hierarchy`, a term stays while a higher-order
  * term containing it (a*b or a^2 for a) is in the model. The intercept always stays.
- * Works on the full fit's factorisation (p-row subproblems). `terms` are the fit's
- * kept terms; returns indices into them: kept, and dropped in the order dropped.
+ * Ties: p-values within P_TIE_TOLERANCE (1e-9) of the largest count as equal, and of
+ * those the term latest in model order leaves first (so the choice never rests on the
+ * last digit of rounding). Works on the full fit's factorisation (p-row subproblems).
+ * `terms` are the fit's kept terms; returns indices into them: kept, and dropped in
+ * the order dropped.
  */
 export function backwardEliminate(full: LeastSquaresFit, terms: readonly Term[], alpha: number, hierarchy: boolean): { kept: number[]; dropped: number[] } {
   const n = full.fitted.length;
@@ -223,20 +204,18 @@ export function backwardEliminate(full: LeastSquaresFit, terms: readonly Term[],
     if (df <= 0) break;
     const fit = refitSubset(full, active);
     const s2 = fit.rss / df;
-    let worst = -1;
-    let worstP = alpha;
+    const candidates: { j: number; p: number }[] = [];
     active.forEach((j, a) => {
       const t = terms[j]!;
       if (t.exponents.every((e) => e === 0)) return;
       if (hierarchy && active.some((o) => o !== j && termContains(terms[o]!, t))) return;
       const se = Math.sqrt(s2 * fit.covUnscaled[a]![a]!);
       const p = se > 0 ? tTwoSidedP(fit.coefficients[a]! / se, df) : 0;
-      if (p > worstP) {
-        worstP = p;
-        worst = j;
-      }
+      if (p > alpha) candidates.push({ j, p });
     });
-    if (worst < 0) break;
+    if (candidates.length === 0) break;
+    const maxP = Math.max(...candidates.map((c) => c.p));
+    const worst = Math.max(...candidates.filter((c) => c.p >= maxP - P_TIE_TOLERANCE).map((c) => c.j));
     dropped.push(worst);
     active = active.filter((j) => j !== worst);
   }
@@ -251,7 +230,6 @@ export function backwardEliminate(full: LeastSquaresFit, terms: readonly Term[],
 export function fitParsed(input: FitInput, responseName = input.responseName): { output: FitOutput; model: FittedModel } {
   const factors = input.factors;
   const names = factors.map((f) => f.name);
-  const k = names.length;
   const allTerms = buildTerms(input.model, names);
   const { X: Xc, y: yRaw } = codedRunsOf(input, responseName);
   const y = input.transform === "ln" ? yRaw.map(Math.log) : yRaw;
@@ -340,23 +318,6 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
     predR2: press !== null && sst > 0 ? 1 - press / sst : null,
     press,
   };
-  let canonical: CanonicalOutput | null = null;
-  if (terms.some(isSquareTerm)) {
-    const ca = canonicalAnalysis(terms, fit.coefficients, k);
-    if (ca) {
-      const toRec = (v: readonly number[]) => Object.fromEntries(names.map((nm, i) => [nm, v[i]!]));
-      const back = (v: number | null) => (v === null ? null : input.transform === "ln" ? Math.exp(v) : v);
-      canonical = {
-        stationaryPoint: ca.stationaryPoint
-          ? { coded: toRec(ca.stationaryPoint), natural: toRec(ca.stationaryPoint.map((x, i) => decodeValue(factors[i]!, x))) }
-          : null,
-        predicted: back(ca.predicted),
-        eigenvalues: ca.eigenvalues,
-        eigenvectors: ca.eigenvectors.map(toRec),
-        kind: ca.kind,
-      };
-    } else warnings.push("Canonical analysis skipped: the model has terms above second order.");
-  }
   const output: FitOutput = {
     terms: termsOut,
     dropped,
@@ -369,7 +330,6 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
       pureError: pureErr,
       total: { df: n - 1, ss: sst },
     },
-    canonical,
     curvature: curvatureTest(Xc, y),
     transform: input.transform,
     diagnostics,

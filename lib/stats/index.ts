@@ -1,4 +1,4 @@
-/** The statistics engine's public API: model terms, least squares, fitting, distributions. */
+/** The statistics engine's public API: model terms, least squares, fitting, prediction, distributions. */
 export { buildTerms, parseTerm, termName, termValue, modelRow, termContains, isSquareTerm, termDegree, modelSpecSchema, type Term, type ModelSpec } from "./model-terms";
 export { leastSquaresQR, findAliasedColumns, scaledQr, refitSubset, fullFitOfSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ScaledQr } from "./least-squares";
 export { tQuantile, tTwoSidedP, fQuantile, fUpperP } from "./distributions";
@@ -8,16 +8,17 @@ export {
   fitModelWithPredictor,
   fitParsed,
   backwardEliminate,
+  P_TIE_TOLERANCE,
   pureError,
   curvatureTest,
   codedRunsOf,
   type FitOutput,
-  type FittedModel,
   type TermEstimate,
   type AnovaRow,
   type FitStats,
   type Diagnostic,
-  type CanonicalOutput,
   type CurvatureTest,
   type PointPrediction,
 } from "./fit";
+export { predictAt, predictModelScale, type Prediction } from "./predict";
+export type { FittedModel } from "./fitted-model";

@@ -5,8 +5,8 @@
  */
 import { AppError } from "../errors/app-error";
 import { decodeValue } from "../doe/factors";
-import type { FittedModel } from "../stats/fit";
-import { predictModelScale } from "./predict";
+import type { FittedModel } from "../stats/fitted-model";
+import { predictModelScale } from "../stats/predict";
 
 export interface SurfaceGridOptions {
   xFactor: string;

@@ -1,5 +1,5 @@
-/** The surface engine's public API: prediction, canonical analysis, optimisation, desirability. */
-export { predictAt, predictModelScale, type Prediction } from "./predict";
+/** The surface engine's public API: the `fit` verb with canonical analysis, optimisation, desirability, grids. */
+export { fitResponseSurface, canonicalOfModel, type SurfaceFitOutput, type CanonicalOutput } from "./response-surface";
 export { canonicalAnalysis, quadraticParts, RIDGE_TOLERANCE, type CanonicalCoded, type SurfaceKind } from "./canonical";
 export { desirability, overallDesirability, desirabilitySpecSchema, type DesirabilitySpec } from "./desirability";
 export {

@@ -12,11 +12,12 @@ import { constraintInCoded, constraintSchema, parseConstraints } from "../doe/co
 import { decodeValue } from "../doe/factors";
 import { seededRng } from "../doe/randomize";
 import { checkRuns, fitFields, type FitInput } from "../stats/fit-schema";
-import { fitParsed, type FittedModel } from "../stats/fit";
+import { fitParsed } from "../stats/fit";
+import type { FittedModel } from "../stats/fitted-model";
+import { predictAt, predictModelScale } from "../stats/predict";
 import { modelSpecSchema } from "../stats/model-terms";
 import { quadraticParts } from "./canonical";
 import { desirability, desirabilitySpecSchema, overallDesirability } from "./desirability";
-import { predictAt, predictModelScale } from "./predict";
 import { inRegion, maximizeQuadraticInBall, maximizeQuadraticInCube, multiStartMaximize, type Quadratic, type Region } from "./solvers";
 
 const responseSpecSchema = z.intersection(

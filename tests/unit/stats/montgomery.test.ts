@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { fitModel } from "../../../lib/stats";
+import { fitResponseSurface } from "../../../lib/surface";
 import { EX112 } from "./montgomery-data";
 
 // Montgomery, Design and Analysis of Experiments, Example 6.2 (unreplicated 2^4,
@@ -52,7 +53,7 @@ describe("Montgomery Example 6.2 (2^4 filtration rate)", () => {
 });
 
 describe("Montgomery Example 11.2 (central composite, k = 2)", () => {
-  const out = fitModel({ ...EX112, model: "quadratic" });
+  const out = fitResponseSurface({ ...EX112, model: "quadratic" }).output;
   const b = Object.fromEntries(out.terms.map((t) => [t.term, t.estimate]));
   it("gives the full quadratic's coefficients", () => {
     // REFERENCE.md §6 [C]: ŷ = 79.940 + 0.9950x1 + 0.5152x2 − 1.3763x1² − 1.0013x2² + 0.2500x1x2

@@ -94,8 +94,8 @@ describe("exact optima of quadratics", () => {
 
 describe("surface grid for plots", () => {
   it("evaluates the fitted model over two factors (Montgomery 11.2 fit, computed in this test)", async () => {
-    const { fitModelWithPredictor } = await import("../../../lib/stats");
-    const { surfaceGrid, predictAt } = await import("../../../lib/surface");
+    const { fitModelWithPredictor, predictAt } = await import("../../../lib/stats");
+    const { surfaceGrid } = await import("../../../lib/surface");
     const { EX112 } = await import("../stats/montgomery-data");
     const { model } = fitModelWithPredictor({ ...EX112, model: "quadratic" });
     const g = surfaceGrid(model, { xFactor: "x1", yFactor: "x2", steps: 5 });

@@ -6,9 +6,9 @@
  * ŷ ± t(0.975, df)·s·√(1 + f0'(X'X)⁻¹f0). With the ln transform the interval ends are
  * transformed back (exp), giving intervals on the original scale.
  */
-import { tQuantile } from "../stats/distributions";
-import type { FittedModel } from "../stats/fit";
-import { modelRow } from "../stats/model-terms";
+import { tQuantile } from "./distributions";
+import type { FittedModel } from "./fitted-model";
+import { modelRow } from "./model-terms";
 
 export interface Prediction {
   /** Predicted response on the original scale. */
