@@ -19,6 +19,12 @@ export interface FittedModel {
   transform: "none" | "ln";
   /** The coded design points, for the design's region. */
   codedRuns: number[][];
-  /** The observed responses (original scale). */
+  /** The observed responses (original scale) of the runs fitted. */
   observed: number[];
+  /**
+   * Block labels when several plans were fitted with a block term, else empty. The
+   * terms, coefficients and (X'X)⁻¹ here are those of the surface only: block effects
+   * are left at zero (sum-to-zero coding), so every prediction averages over the blocks.
+   */
+  blocks: string[];
 }

@@ -185,19 +185,6 @@ function unscaledR(f: ScaledQr): Matrix {
 }
 
 /**
- * Refits a column subset S of a fit without touching the n rows again for the
- * estimates: since X = Q·R, ‖y − X_S b‖² = ‖z − R_S b‖² + rss, a p-row problem.
- * Returns coefficients, (X_S'X_S)⁻¹ and the RSS. Throws RangeError when the subset is
- * rank deficient.
- */
-export function refitSubset(fit: LeastSquaresFit, cols: readonly number[]): { coefficients: number[]; covUnscaled: number[][]; rss: number } {
-  const A = unscaledR(fit.qr).subMatrixColumn([...cols]);
-  const sub = leastSquaresQR(A, fit.z);
-  if (sub.aliased.length) throw new RangeError("subset is rank deficient");
-  return { coefficients: sub.coefficients, covUnscaled: sub.covUnscaled, rss: fit.rss + sub.rss };
-}
-
-/**
  * The full fit (fitted values, residuals, leverages) of a column subset S, from the
  * parent factorisation without a new n-row QR: R_S = Q₂R₂ gives X_S = (Q·Q₂)R₂, so R₂
  * (with the column norms of R_S, equal to those of X_S) is the R of X_S. `cols` index

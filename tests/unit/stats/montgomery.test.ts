@@ -1,16 +1,10 @@
 import { describe, expect, it } from "vitest";
 import { fitModel } from "../../../lib/stats";
 import { fitResponseSurface } from "../../../lib/surface";
-import { EX112 } from "./montgomery-data";
+import { EX112, F4, RUNS62 as runs62 } from "./montgomery-data";
 
 // Montgomery, Design and Analysis of Experiments, Example 6.2 (unreplicated 2^4,
-// filtration rate), responses in standard order, A fastest (REFERENCE.md §6, [V]).
-const Y62 = [45, 71, 48, 65, 68, 60, 80, 65, 43, 100, 45, 104, 75, 86, 70, 96];
-const F4 = ["A", "B", "C", "D"].map((name) => ({ name, low: -1, high: 1 }));
-const runs62 = Y62.map((y, r) => ({
-  coded: { A: r & 1 ? 1 : -1, B: r & 2 ? 1 : -1, C: r & 4 ? 1 : -1, D: r & 8 ? 1 : -1 },
-  response: y,
-}));
+// filtration rate), REFERENCE.md §6 [V]: data in montgomery-data.ts.
 const ALL15 = ["A", "B", "C", "D", "A*B", "A*C", "A*D", "B*C", "B*D", "C*D", "A*B*C", "A*B*D", "A*C*D", "B*C*D", "A*B*C*D"];
 
 describe("Montgomery Example 6.2 (2^4 filtration rate)", () => {
