@@ -8,7 +8,9 @@ import { decodeValue } from "../doe/factors";
 import { fitModelWithPredictor, type FitOutput } from "../stats/fit";
 import type { FittedModel } from "../stats/fitted-model";
 import { isSquareTerm } from "../stats/model-terms";
-import { canonicalAnalysis, type SurfaceKind } from "./canonical";
+import { canonicalAnalysis, describeCanonical, type CanonicalDirection, type RidgeKind, type SurfaceKind } from "./canonical";
+import { formatNatural } from "./format";
+import { outsideStudied, studiedRanges } from "./studied-region";
 
 /** The canonical analysis as the `fit` output reports it (CONTRACT.md), coded and natural. */
 export interface CanonicalOutput {
@@ -18,6 +20,14 @@ export interface CanonicalOutput {
   eigenvalues: number[];
   eigenvectors: Record<string, number>[];
   kind: SurfaceKind;
+  /** For a ridge: stationary (its stationary point inside the studied region), rising or falling; else null. */
+  ridge: RidgeKind | null;
+  /** Whether the stationary point lies in the studied region (the range of the runs); null without one. */
+  stationaryInside: boolean | null;
+  /** The analysis in words: what kind of surface, where, and along which factors. */
+  description: string;
+  /** Each canonical axis in words, in the order of `eigenvalues`. */
+  directions: CanonicalDirection[];
 }
 
 /** The CONTRACT.md `fit` output: the statistics engine's fit plus `canonical`. */
@@ -38,6 +48,13 @@ export function canonicalOfModel(model: FittedModel): { canonical: CanonicalOutp
   if (!ca) return { canonical: null, warning: "Canonical analysis skipped: the model has terms above second order." };
   const toRec = (v: readonly number[]) => Object.fromEntries(names.map((nm, i) => [nm, v[i]!]));
   const back = (v: number | null) => (v === null ? null : model.transform === "ln" ? Math.exp(v) : v);
+  const ranges = studiedRanges(model);
+  const words = describeCanonical(
+    ca,
+    names,
+    (x) => formatNatural(model.factors, x),
+    (x) => outsideStudied(ranges, x).length === 0,
+  );
   return {
     canonical: {
       stationaryPoint: ca.stationaryPoint
@@ -47,6 +64,10 @@ export function canonicalOfModel(model: FittedModel): { canonical: CanonicalOutp
       eigenvalues: ca.eigenvalues,
       eigenvectors: ca.eigenvectors.map(toRec),
       kind: ca.kind,
+      ridge: words.ridge,
+      stationaryInside: words.stationaryInside,
+      description: words.description,
+      directions: words.directions,
     },
     warning: null,
   };
