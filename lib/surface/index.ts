@@ -39,3 +39,14 @@ export {
 export { maximizeWithFeasibility, type SafeSearchOptions, type SafeSearchResult } from "./safe-search";
 export { surfaceGrid, type SurfaceGrid, type SurfaceGridOptions, type GridCaution } from "./grid";
 export { studiedRanges, outsideStudied } from "./studied-region";
+export {
+  planConfirmation,
+  confirmationHolds,
+  predictMeanOf,
+  DEFAULT_SETTABLE_STEPS,
+  type ConfirmationOptions,
+  type ConfirmationPlan,
+  type ConfirmationVerdict,
+  type MeanPrediction,
+} from "./confirmation";
+export { steepestAscent, type SteepestAscentOptions, type SteepestAscentPath, type PathPoint } from "./steepest-ascent";

@@ -9,7 +9,7 @@ import { fitModelWithPredictor, type FitOutput } from "../stats/fit";
 import type { FittedModel } from "../stats/fitted-model";
 import { isSquareTerm } from "../stats/model-terms";
 import { canonicalAnalysis, describeCanonical, type CanonicalDirection, type RidgeKind, type SurfaceKind } from "./canonical";
-import { formatNatural } from "./format";
+import { formatNatural } from "../doe/format";
 import { outsideStudied, studiedRanges } from "./studied-region";
 
 /** The canonical analysis as the `fit` output reports it (CONTRACT.md), coded and natural. */

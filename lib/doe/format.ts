@@ -1,5 +1,5 @@
 /** Natural factor values in words, for messages: "temperature 85.2 degC, time 3.1 h". */
-import { decodeValue, type Factor } from "../doe/factors";
+import { decodeValue, type Factor } from "./factors";
 
 /** A number to 4 significant digits without trailing zeros (−0 as 0). */
 export function formatNumber(v: number): string {
