@@ -19,7 +19,7 @@ import { fitInputSchema, type FitInput } from "./fit-schema";
 import type { FittedModel } from "./fitted-model";
 import { fullFitOfSubset, leastSquaresQR, type LeastSquaresFit } from "./least-squares";
 import { buildTerms, termValue, type Term } from "./model-terms";
-import { predictAt } from "./predict";
+import { predictAt, rowPrediction } from "./predict";
 import { backwardEliminate, type EliminationStep, type PrunableColumn } from "./prune";
 
 /** One estimated term (CONTRACT.md `fit` output). Null statistics when no residual df. */
@@ -330,15 +330,8 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
     const label = labelOf(e.index);
     const b = label === null ? -1 : coding.labels.indexOf(label);
     const f = cols.map((c) => columnValue(c, XAll[e.index]!, b < 0 ? null : b, B));
-    let yhat = 0;
-    let q = 0;
-    for (let i = 0; i < p; i++) {
-      yhat += f[i]! * fit.coefficients[i]!;
-      let acc = 0;
-      for (let j = 0; j < p; j++) acc += fit.covUnscaled[i]![j]! * f[j]!;
-      q += f[i]! * acc;
-    }
-    const half = s2 !== null && tq !== null ? tq * Math.sqrt(s2 * (1 + Math.max(q, 0))) : null;
+    const { yhat, q } = rowPrediction(fit.coefficients, fit.covUnscaled, f);
+    const half = s2 !== null && tq !== null ? tq * Math.sqrt(s2 * (1 + q)) : null;
     const obs = yAll[e.index]!;
     return {
       index: e.index,

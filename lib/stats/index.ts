@@ -22,5 +22,5 @@ export {
 export { backwardEliminate, P_TIE_TOLERANCE, type EliminationStep, type EliminationResult, type PrunableColumn, type HeldTerm } from "./prune";
 export { pureError, curvatureTest, type CurvatureTest } from "./anova";
 export { blockCoding, blockSumOfSquares, type BlockCoding } from "./blocks";
-export { predictAt, predictModelScale, type Prediction } from "./predict";
+export { predictAt, predictModelScale, rowPrediction, type Prediction } from "./predict";
 export type { FittedModel } from "./fitted-model";

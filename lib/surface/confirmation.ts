@@ -20,6 +20,7 @@ import type { BlockingCaution, SafetyCheck } from "../doe/safe-envelope";
 import { tQuantile } from "../stats/distributions";
 import type { FittedModel } from "../stats/fitted-model";
 import { modelRow } from "../stats/model-terms";
+import { rowPrediction } from "../stats/predict";
 import { formatFactorValue, formatNumber as fmt } from "../doe/format";
 import { inRegion, type Region } from "./solvers";
 
@@ -88,16 +89,7 @@ export interface ConfirmationPlan {
 
 /** x₀'(X'X)⁻¹x₀ at a coded point, and the prediction there (model scale). */
 function leverageAt(model: FittedModel, x: readonly number[]): { yhat: number; q: number } {
-  const f = modelRow(model.terms, x);
-  let yhat = 0;
-  let q = 0;
-  for (let i = 0; i < f.length; i++) {
-    yhat += f[i]! * model.coefficients[i]!;
-    let s = 0;
-    for (let j = 0; j < f.length; j++) s += model.covUnscaled[i]![j]! * f[j]!;
-    q += f[i]! * s;
-  }
-  return { yhat, q: Math.max(q, 0) };
+  return rowPrediction(model.coefficients, model.covUnscaled, modelRow(model.terms, x));
 }
 
 /**
