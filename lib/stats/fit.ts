@@ -9,7 +9,6 @@
  * diagnostics. Canonical analysis of a second-order fit is the caller's
  * (lib/surface/response-surface.ts): statistics does not depend on the surface engine.
  */
-import { Matrix } from "ml-matrix";
 import { AppError, parseOrThrow } from "../errors/app-error";
 import { codeValue, decodeValue } from "../doe/factors";
 import { curvatureTest, pureError, type CurvatureTest } from "./anova";
@@ -17,7 +16,7 @@ import { blockCoding, blockSumOfSquares, type BlockCoding } from "./blocks";
 import { fUpperP, tQuantile, tTwoSidedP } from "./distributions";
 import { fitInputSchema, type FitInput } from "./fit-schema";
 import type { FittedModel } from "./fitted-model";
-import { fullFitOfSubset, leastSquaresQR, type LeastSquaresFit } from "./least-squares";
+import { fullFitOfSubset, leastSquaresColumns, ALIAS_TOLERANCE } from "./least-squares";
 import { buildTerms, termValue, type Term } from "./model-terms";
 import { predictAt, rowPrediction } from "./predict";
 import { backwardEliminate, type EliminationStep, type PrunableColumn } from "./prune";
@@ -157,11 +156,13 @@ function columnValue(c: Column, x: readonly number[], block: number | null, nBlo
   return block === nBlocks - 1 ? -1 : block === c.block ? 1 : 0;
 }
 
-function modelMatrix(columns: readonly Column[], X: readonly number[][], coding: BlockCoding): Matrix {
-  const M = new Matrix(X.length, columns.length);
+/** The model matrix, column-major (n × columns). */
+function modelMatrix(columns: readonly Column[], X: readonly number[][], coding: BlockCoding): Float64Array {
+  const n = X.length;
+  const M = new Float64Array(n * columns.length);
   const B = coding.labels.length;
   X.forEach((x, i) => {
-    for (let j = 0; j < columns.length; j++) M.set(i, j, columnValue(columns[j]!, x, coding.blockOf[i]!, B));
+    for (let j = 0; j < columns.length; j++) M[j * n + i] = columnValue(columns[j]!, x, coding.blockOf[i]!, B);
   });
   return M;
 }
@@ -215,11 +216,13 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
     ]);
   }
   // Aliased (inestimable) columns, in column order: later columns aliased with earlier ones.
-  const first = leastSquaresQR(modelMatrix(columns, Xc, coding), y);
+  // One factorisation of the full model; the reported fit (with (X'X)⁻¹ and leverages) is
+  // taken from it for the columns that stay, after pruning if asked.
+  const first = leastSquaresColumns(modelMatrix(columns, Xc, coding), n, columns.length, y, ALIAS_TOLERANCE, { diagnostics: false });
   const aliased = first.aliased.map((j) => columnName(columns[j]!));
   if (aliased.length) warnings.push(`Not estimable from these runs (aliased with earlier terms${B > 1 ? " or with blocks" : ""}): ${aliased.join(", ")}.`);
   let cols = first.kept.map((j) => columns[j]!);
-  let fit: LeastSquaresFit = first;
+  let stay = cols.map((_, j) => j);
   const dropped: string[] = [];
   let pruning: FitOutput["pruning"] = null;
   if (input.prune) {
@@ -233,12 +236,11 @@ export function fitParsed(input: FitInput, responseName = input.responseName): {
       const be = backwardEliminate(first, prunable, input.prune);
       pruning = { alpha: input.prune.alpha, hierarchy: input.prune.hierarchy, steps: be.steps };
       dropped.push(...be.dropped.map((j) => columnName(cols[j]!)));
-      if (be.dropped.length) {
-        fit = fullFitOfSubset(first, be.kept, y);
-        cols = be.kept.map((j) => cols[j]!);
-      }
+      stay = be.kept;
     }
   }
+  const fit = fullFitOfSubset(first, stay, y);
+  cols = stay.map((j) => cols[j]!);
 
   const p = cols.length;
   const dfRes = n - p;

@@ -1,6 +1,6 @@
 /** The statistics engine's public API: model terms, least squares, fitting, pruning, prediction, distributions. */
 export { buildTerms, parseTerm, termName, termValue, modelRow, termContains, isSquareTerm, termDegree, modelSpecSchema, type Term, type ModelSpec } from "./model-terms";
-export { leastSquaresQR, findAliasedColumns, scaledQr, fullFitOfSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ScaledQr } from "./least-squares";
+export { leastSquaresQR, leastSquaresColumns, findAliasedColumns, scaledQr, fullFitOfSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ScaledQr } from "./least-squares";
 export { ShrinkingQr } from "./qr-update";
 export { tQuantile, tTwoSidedP, fQuantile, fUpperP } from "./distributions";
 export { fitInputSchema, observedRunSchema, excludedRunSchema, pruneSchema, predictPointSchema, type FitInput, type FitInputRaw } from "./fit-schema";

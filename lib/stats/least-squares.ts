@@ -85,13 +85,15 @@ function scaledQrOf(A: Float64Array, n: number, p: number): ScaledQr {
     A[o + j] = x0 - alpha; // v = x − αe₁, kept in place of x
     const vtv = sigma * sigma - x0 * x0 + (x0 - alpha) ** 2;
     vv[j] = vtv;
+    const v = A.subarray(o + j, o + n);
+    const m = n - j;
     for (let k = j + 1; k < p; k++) {
-      const ok = k * n;
+      const c = A.subarray(k * n + j, k * n + n);
       let dot = 0;
-      for (let i = j; i < n; i++) dot += A[o + i]! * A[ok + i]!;
+      for (let i = 0; i < m; i++) dot += v[i]! * c[i]!;
       const f = (2 * dot) / vtv;
-      for (let i = j; i < n; i++) A[ok + i]! -= f * A[o + i]!;
-      R[j * p + k] = A[ok + j]!;
+      for (let i = 0; i < m; i++) c[i]! -= f * v[i]!;
+      R[j * p + k] = c[0]!;
     }
     R[j * p + j] = alpha;
   }
@@ -99,14 +101,11 @@ function scaledQrOf(A: Float64Array, n: number, p: number): ScaledQr {
 }
 
 /** Column-scaled Householder QR of X. */
-export function scaledQr(X: Matrix, cols?: readonly number[]): ScaledQr {
+export function scaledQr(X: Matrix): ScaledQr {
   const n = X.rows;
-  const use = cols ?? Array.from({ length: X.columns }, (_, j) => j);
-  const p = use.length;
+  const p = X.columns;
   const A = new Float64Array(n * p);
-  use.forEach((c, j) => {
-    for (let i = 0; i < n; i++) A[j * n + i] = X.get(i, c);
-  });
+  for (let j = 0; j < p; j++) for (let i = 0; i < n; i++) A[j * n + i] = X.get(i, j);
   return scaledQrOf(A, n, p);
 }
 
@@ -155,15 +154,17 @@ function upperInverse(R: Float64Array, p: number): Float64Array {
  * Solves the least-squares problem from a factorisation (all columns estimable): the
  * scaled coefficients by applying the Householder reflectors to y and back-substituting.
  */
-function solveFactored(f: ScaledQr, y: readonly number[], kept: number[], aliased: number[]): LeastSquaresFit {
-  return finishFit(f, solveScaled(f, y), y, kept, aliased);
+function solveFactored(f: ScaledQr, y: readonly number[], kept: number[], aliased: number[], diagnostics = true): LeastSquaresFit {
+  return finishFit(f, solveScaled(f, y), y, kept, aliased, diagnostics);
 }
 
 /**
  * Everything else from the scaled solution bs: z = Q'y as R·bs, (X'X)⁻¹ = D⁻¹R⁻¹R⁻ᵀD⁻¹,
- * fitted values, residuals, and leverages hᵢ = ‖R⁻ᵀxᵢ‖² (xᵢ the scaled row).
+ * fitted values, residuals, and leverages hᵢ = ‖R⁻ᵀxᵢ‖² (xᵢ the scaled row). Without
+ * `diagnostics`, only z, the coefficients, the fitted values, the residuals and the RSS
+ * (covUnscaled and leverage left empty): what a fit about to be pruned needs.
  */
-function finishFit(f: ScaledQr, bs: number[], y: readonly number[], kept: number[], aliased: number[]): LeastSquaresFit {
+function finishFit(f: ScaledQr, bs: number[], y: readonly number[], kept: number[], aliased: number[], diagnostics = true): LeastSquaresFit {
   const { n, p, Xs, R, norms } = f;
   const z = new Array<number>(p).fill(0);
   for (let i = 0; i < p; i++) {
@@ -171,8 +172,21 @@ function finishFit(f: ScaledQr, bs: number[], y: readonly number[], kept: number
     for (let j = i; j < p; j++) s += R[i * p + j]! * bs[j]!;
     z[i] = s;
   }
-  const Rinv = upperInverse(R, p);
   const coefficients = bs.map((b, i) => b / norms[i]!);
+  if (!diagnostics) {
+    const fitted = new Array<number>(n);
+    const residuals = new Array<number>(n);
+    let rss = 0;
+    for (let i = 0; i < n; i++) {
+      let fv = 0;
+      for (let j = 0; j < p; j++) fv += Xs[i * p + j]! * bs[j]!;
+      fitted[i] = fv;
+      residuals[i] = y[i]! - fv;
+      rss += residuals[i]! ** 2;
+    }
+    return { kept, aliased, coefficients, covUnscaled: [], fitted, residuals, leverage: [], rss, qr: f, z };
+  }
+  const Rinv = upperInverse(R, p);
   // (X'X)⁻¹ = D⁻¹ R⁻¹ R⁻ᵀ D⁻¹
   const covUnscaled: number[][] = Array.from({ length: p }, () => new Array<number>(p).fill(0));
   for (let i = 0; i < p; i++)
@@ -230,12 +244,31 @@ function splitByDiagonal(f: ScaledQr, tol: number): { kept: number[]; aliased: n
  * Example: leastSquaresQR(new Matrix([[1,0],[1,1],[1,2]]), [1,3,5]).coefficients → [1, 2]
  */
 export function leastSquaresQR(X: Matrix, y: readonly number[], tol = ALIAS_TOLERANCE): LeastSquaresFit {
-  if (X.rows !== y.length) throw new RangeError(`X has ${X.rows} rows but y has ${y.length} values`);
-  let f = scaledQr(X);
+  const n = X.rows;
+  const p = X.columns;
+  const A = new Float64Array(n * p);
+  for (let j = 0; j < p; j++) for (let i = 0; i < n; i++) A[j * n + i] = X.get(i, j);
+  return leastSquaresColumns(A, n, p, y, tol);
+}
+
+/**
+ * As `leastSquaresQR`, for an n×p matrix given column-major (left unchanged). With
+ * `diagnostics: false` the fit carries no (X'X)⁻¹ and no leverages — for a full model
+ * that backward elimination will reduce (fullFitOfSubset then gives them for the
+ * model kept). Throws RangeError as `leastSquaresQR`.
+ */
+export function leastSquaresColumns(A: Float64Array, n: number, p: number, y: readonly number[], tol = ALIAS_TOLERANCE, options: { diagnostics?: boolean } = {}): LeastSquaresFit {
+  if (n !== y.length) throw new RangeError(`X has ${n} rows but y has ${y.length} values`);
+  if (A.length !== n * p) throw new RangeError(`X should hold ${n}×${p} values`);
+  let f = scaledQrOf(A.slice(), n, p);
   const { kept, aliased } = splitByDiagonal(f, tol);
   if (kept.length === 0) throw new RangeError("no estimable column");
-  if (aliased.length) f = scaledQr(X, kept);
-  return solveFactored(f, y, kept, aliased);
+  if (aliased.length) {
+    const sub = new Float64Array(n * kept.length);
+    kept.forEach((c, j) => sub.set(A.subarray(c * n, (c + 1) * n), j * n));
+    f = scaledQrOf(sub, n, kept.length);
+  }
+  return solveFactored(f, y, kept, aliased, options.diagnostics ?? true);
 }
 
 /** Columns `cols` of the p×p upper-triangular R of the unscaled columns (R·diag(norms)), column-major. */
