@@ -6,7 +6,7 @@ import { navFor } from "@/lib/navigation";
 /**
  * The expected table, written out by hand from the roles in ../shared/PRODUCT.md
  * ("People and roles"): a viewer reads everything and changes nothing; a lab admin
- * manages members; a stockkeeper manages the catalogue and containers; a safety officer
+ * manages members and API tokens; a stockkeeper manages the catalogue and containers; a safety officer
  * and an auditor-viewer read the audit log. If a permission is added to lib/auth/permissions.ts
  * without a row here, the "covers every permission" test fails.
  */
@@ -19,6 +19,7 @@ const EXPECTED: Record<Permission, Role[]> = {
   "chemicals.manage": ["stockkeeper", "lab_admin"],
   "stock.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
   "stock.manage": ["stockkeeper", "lab_admin"],
+  "tokens.manage": ["lab_admin"],
 };
 
 describe("permission table", () => {

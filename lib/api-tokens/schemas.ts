@@ -1,0 +1,45 @@
+/** The API token schemas, shared by the create form and the route handlers. */
+import { z } from "zod";
+import { roleSchema } from "@/lib/schemas/membership";
+import type { Role } from "@/lib/auth/roles";
+import { TOKEN_LIFETIME_DAYS, type TokenState } from "./rules";
+
+/** Lifetimes the form offers, in days (any whole number in range is accepted by the API). */
+export const TOKEN_LIFETIME_CHOICES = [7, 30, 90, 180, 365] as const;
+
+export const createApiTokenSchema = z.object({
+  name: z
+    .string({ message: "give the token a name" })
+    .trim()
+    .min(1, "give the token a name, e.g. the script that will use it")
+    .max(80, "at most 80 characters")
+    .refine((s) => !/[\p{Cc}\p{Cs}]/u.test(s), "no control characters"),
+  role: roleSchema,
+  expiresInDays: z
+    .number({ message: `a whole number of days, ${TOKEN_LIFETIME_DAYS.min} to ${TOKEN_LIFETIME_DAYS.max}` })
+    .int("a whole number of days")
+    .min(TOKEN_LIFETIME_DAYS.min, `at least ${TOKEN_LIFETIME_DAYS.min} day`)
+    .max(TOKEN_LIFETIME_DAYS.max, `at most ${TOKEN_LIFETIME_DAYS.max} days`),
+});
+export type CreateApiTokenInput = z.input<typeof createApiTokenSchema>;
+
+/** A token as lists show it: never its secret, only its selector. */
+export interface ApiTokenRow {
+  id: string;
+  name: string;
+  role: Role;
+  /** The secret's first characters, e.g. "trl_Ab3dE9xQ", to recognise it. */
+  selector: string;
+  createdBy: string;
+  createdAt: string;
+  expiresAt: string;
+  lastUsedAt: string | null;
+  revokedAt: string | null;
+  state: TokenState;
+}
+
+/** What creating a token returns: the row, and the secret, shown this once. */
+export interface CreatedApiToken {
+  token: ApiTokenRow;
+  secret: string;
+}
