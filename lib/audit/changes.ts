@@ -5,6 +5,7 @@
  * hashes) are left out.
  */
 import { formatAmount, type Dimension } from "@/inventory/units";
+import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
 
 export interface FieldChange {
   field: string;
@@ -39,6 +40,7 @@ const LABELS: Record<string, string> = {
   userId: "person",
   expiresAt: "expires",
   revokedAt: "revoked",
+  selector: "token begins",
 };
 
 /** Units written after a field's number (PRODUCT.md "Look": units always next to numbers). */
@@ -50,6 +52,11 @@ export function fieldLabel(field: string): string {
 }
 
 type Record_ = Record<string, unknown>;
+
+/** Fields that only say how to read another (the dimension of a `…Base` amount). */
+function isHelperField(field: string, record: Record_ | null): boolean {
+  return field.endsWith("Dimension") || (field === "dimension" && !!record && Object.keys(record).some((k) => k.endsWith("Base")));
+}
 const isRecord = (v: unknown): v is Record_ => typeof v === "object" && v !== null && !Array.isArray(v);
 const MAX_LIST = 8;
 
@@ -67,11 +74,12 @@ export function formatValue(value: unknown, field = "", context: { dimension?: D
   }
   if (isRecord(value)) {
     const parts = Object.entries(value)
-      .filter(([k]) => !HIDDEN.has(k) && !k.endsWith("Dimension"))
+      .filter(([k]) => !HIDDEN.has(k) && !isHelperField(k, value))
       .map(([k, v]) => `${fieldLabel(k)}: ${formatValue(v, k, dimensionFor(value, k, context.dimension)) ?? "—"}`);
     return parts.length ? parts.join("; ") : null;
   }
   const text = String(value);
+  if (field === "role" && (ROLES as readonly string[]).includes(text)) return ROLE_LABELS[text as Role];
   const dateTime = /^(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2})(:\d{2}(\.\d+)?)?(Z|[+-]00:00)$/.exec(text);
   if (dateTime) return `${dateTime[1]} ${dateTime[2]} UTC`;
   const unit = UNITS[field];
@@ -103,7 +111,7 @@ function same(a: unknown, b: unknown): boolean {
 export function auditChanges(before: unknown, after: unknown, context: { dimension?: Dimension | null } = {}): FieldChange[] {
   const b = isRecord(before) ? before : before === null || before === undefined ? null : { value: before };
   const a = isRecord(after) ? after : after === null || after === undefined ? null : { value: after };
-  const fields = [...new Set([...Object.keys(a ?? {}), ...Object.keys(b ?? {})])].filter((k) => !HIDDEN.has(k) && !k.endsWith("Dimension"));
+  const fields = [...new Set([...Object.keys(a ?? {}), ...Object.keys(b ?? {})])].filter((k) => !HIDDEN.has(k) && !isHelperField(k, a) && !isHelperField(k, b));
   const oneSided = !a || !b;
   const changes: FieldChange[] = [];
   for (const field of fields) {

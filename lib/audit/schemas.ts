@@ -11,12 +11,12 @@ export const auditQuerySchema = z.object({
     .trim()
     .max(60, "at most 60 characters")
     .regex(/^[a-z_]*$/, "an entity type such as chemical or container")
-    .optional()
+    .nullish()
     .transform((v) => (v ? v : null)),
   actor: z
     .string()
     .regex(/^((user|token):[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})?$/i, "user:<id> or token:<id>")
-    .optional()
+    .nullish()
     .transform((v) => (v ? v.toLowerCase() : null)),
   page: z.coerce.number().int().min(1).max(100_000).optional().default(1),
   pageSize: z.coerce.number().int().min(1).max(100).optional().default(25),

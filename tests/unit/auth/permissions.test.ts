@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { PERMISSIONS, can, type Permission } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
-import { navFor } from "@/lib/navigation";
+import { isNavMenu, navFor, navMenuFor } from "@/lib/navigation";
 
 /**
  * The expected table, written out by hand from the roles in ../shared/PRODUCT.md
@@ -46,5 +46,17 @@ describe("permission table", () => {
     }
     expect(navFor("chemist").map((n) => n.label)).not.toContain("Members");
     expect(navFor("lab_admin").map((n) => n.label)).toContain("Members");
+    expect(navFor("lab_admin").map((n) => n.label)).toContain("API tokens");
+  });
+
+  it("the header groups inventory pages in one menu and shows a menu only when one of its links may be opened", () => {
+    const top = (role: (typeof ROLES)[number]) => navMenuFor(role).map((e) => (isNavMenu(e) ? `${e.label} ▾` : e.label));
+    expect(top("chemist")).toEqual(["Overview", "Inventory ▾"]);
+    expect(top("viewer")).toEqual(["Overview", "Inventory ▾", "Audit log"]);
+    expect(top("lab_admin")).toEqual(["Overview", "Inventory ▾", "Audit log", "Settings ▾"]);
+    const inventory = navMenuFor("chemist").find(isNavMenu)!;
+    expect(inventory.items.map((i) => i.label)).toEqual(["Containers", "Chemicals", "Reservations", "Shortfalls"]);
+    const stockkeeper = navMenuFor("stockkeeper").find(isNavMenu)!;
+    expect(stockkeeper.items.map((i) => i.label)).toContain("Import CSV");
   });
 });
