@@ -7,7 +7,7 @@ import type { FieldChange } from "@/lib/audit/changes";
 export function FieldChanges({ changes }: { changes: FieldChange[] }) {
   if (changes.length === 0) return <span className="text-ink-faint">—</span>;
   return (
-    <ul className="flex flex-col gap-0.5" data-testid="audit-changes">
+    <ul className="flex min-w-64 flex-col gap-0.5" data-testid="audit-changes">
       {changes.map((c) => (
         <li key={c.field} className="break-words">
           <span className="text-ink-soft">{c.label}:</span>{" "}
