@@ -20,7 +20,7 @@ export interface AuditInput {
  * actor too (`actorTokenId`), so the log names the token that made the change.
  */
 export async function audit(entry: AuditInput, transaction?: Transaction): Promise<void> {
-  const token = entry.labId ? await requestApiToken() : null;
+  const token = entry.labId ? await requestApiToken(transaction) : null;
   await AuditEntry.create(
     {
       labId: entry.labId,

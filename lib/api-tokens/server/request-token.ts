@@ -1,8 +1,9 @@
 import "server-only";
+import type { Transaction } from "sequelize";
 import { headers } from "next/headers";
 import { unstable_rethrow } from "next/navigation";
-import { bearerCredentials } from "../secret";
-import { findTokenBySecret } from "./find-token";
+import { ApiToken } from "@/lib/server/models";
+import { bearerCredentials, parseTokenSecret, sameHash } from "../secret";
 
 /**
  * The Bearer credentials of the current request's Authorization header, or null when it
@@ -22,11 +23,14 @@ export async function requestBearer(): Promise<string | null> {
 
 /**
  * The API token the current request is made with, for the audit log: the stored token its
- * Bearer secret belongs to, or null (no Bearer header, or not a token's secret).
+ * Bearer secret belongs to, or null (no Bearer header, or not a token's secret). Read in
+ * the caller's transaction `t`, so an audit entry written inside a transaction never waits
+ * for a second connection of the pool.
  */
-export async function requestApiToken(): Promise<{ id: string; labId: string } | null> {
+export async function requestApiToken(t?: Transaction): Promise<{ id: string; labId: string } | null> {
   const presented = await requestBearer();
-  if (presented === null) return null;
-  const token = await findTokenBySecret(presented);
-  return token ? { id: token.id, labId: token.labId } : null;
+  const parsed = presented === null ? null : parseTokenSecret(presented);
+  if (!parsed) return null;
+  const token = await ApiToken.findOne({ where: { selector: parsed.selector }, attributes: ["id", "labId", "secretHash"], transaction: t });
+  return token && sameHash(parsed.hash, token.secretHash) ? { id: token.id, labId: token.labId } : null;
 }
