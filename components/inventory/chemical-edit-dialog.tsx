@@ -4,7 +4,7 @@ import { useEffect, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { chemicalFormSchema, chemicalFromForm, type ChemicalFormInput, type ChemicalRow } from "@/lib/schemas/inventory";
+import { chemicalFormSchema, chemicalFromForm, type ChemicalFormInput, type ChemicalRow } from "@/inventory/schemas";
 import { postJson } from "@/lib/client/fetch-json";
 import { changedFields } from "@/lib/client/changed-fields";
 import { Banner } from "@/components/ui/banner";

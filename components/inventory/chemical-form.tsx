@@ -1,7 +1,7 @@
 "use client";
 
 import type { FieldErrors, UseFormRegister, UseFormSetError } from "react-hook-form";
-import { PEROXIDE_CLASSES, PHYSICAL_STATES, type ChemicalFormInput, type ChemicalRow } from "@/lib/schemas/inventory";
+import { PEROXIDE_CLASSES, PHYSICAL_STATES, type ChemicalFormInput, type ChemicalRow } from "@/inventory/schemas";
 import type { FieldIssue } from "@/lib/errors/app-error";
 import { STOCK_UNITS } from "@/inventory/units";
 import { Field, inputClass } from "@/components/ui/field";

@@ -1,6 +1,7 @@
 /** The API token schemas, shared by the create form and the route handlers. */
 import { z } from "zod";
-import { roleSchema } from "@/lib/schemas/membership";
+import { roleSchema } from "@/lib/members/schemas";
+import { text } from "@/lib/schemas/text";
 import type { Role } from "@/lib/auth/roles";
 import { TOKEN_LIFETIME_DAYS, type TokenState } from "./rules";
 
@@ -8,12 +9,10 @@ import { TOKEN_LIFETIME_DAYS, type TokenState } from "./rules";
 export const TOKEN_LIFETIME_CHOICES = [7, 30, 90, 180, 365] as const;
 
 export const createApiTokenSchema = z.object({
-  name: z
-    .string({ message: "give the token a name" })
-    .trim()
+  name: text(80)
     .min(1, "give the token a name, e.g. the script that will use it")
-    .max(80, "at most 80 characters")
-    .refine((s) => !/[\p{Cc}\p{Cs}]/u.test(s), "no control characters"),
+    // NUL and broken characters are refused by text(); other control characters here.
+    .refine((s) => !/[\u0001-\u001f\u007f-\u009f]/.test(s), "no control characters"),
   role: roleSchema,
   expiresInDays: z
     .number({ message: `a whole number of days, ${TOKEN_LIFETIME_DAYS.min} to ${TOKEN_LIFETIME_DAYS.max}` })

@@ -1,15 +1,13 @@
 /** The audit log's query (server-side filters and paging) and the rows it returns. */
 import { z } from "zod";
+import { text } from "@/lib/schemas/text";
 import type { FieldChange } from "./changes";
 
 export const AUDIT_PAGE_SIZES = [25, 50, 100] as const;
 
 /** `actor` is "user:<id>" (what a person did in person) or "token:<id>" (what an API token did). */
 export const auditQuerySchema = z.object({
-  entity: z
-    .string()
-    .trim()
-    .max(60, "at most 60 characters")
+  entity: text(60)
     .regex(/^[a-z_]*$/, "an entity type such as chemical or container")
     .nullish()
     .transform((v) => (v ? v : null)),

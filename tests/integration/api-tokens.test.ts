@@ -23,7 +23,7 @@ vi.mock("next/headers", () => ({ headers: async () => ctxState.headers }));
 
 const { AuditEntry, ApiToken, Membership, User } = await import("@/lib/server/models");
 const { createApiToken } = await import("@/lib/api-tokens/server/create-api-token");
-const { listAudit } = await import("@/lib/members/list-audit");
+const { listAudit } = await import("@/lib/members/server/list-audit");
 const tokens = await import("@/app/api/labs/[lab]/tokens/route");
 const tokenOne = await import("@/app/api/labs/[lab]/tokens/[tokenId]/route");
 const containers = await import("@/app/api/labs/[lab]/containers/route");
@@ -205,12 +205,14 @@ describe("using a token (Authorization: Bearer)", () => {
     expect((await call(containers.GET, { bearer: secret })).status).toBe(401);
   });
 
-  it("another lab's token cannot be revoked (404), and a token id that is not a UUID is 404", async () => {
+  it("another lab's token cannot be revoked (404), and a token id that is not a UUID is refused naming tokenId", async () => {
     // A Harrow Fen token, made directly by the domain operation as a fixture.
     const { token } = await createApiToken({ labId: SEED.labs.harrow.id, actorUserId: SEED.users.admin.id, actorRole: "lab_admin", input: { name: `harrow-${randomUUID().slice(0, 8)}`, role: "viewer", expiresInDays: 7 } });
     asUser(SEED.users.admin);
     expect((await call(tokenOne.DELETE, { method: "DELETE", params: { tokenId: token.id } })).status).toBe(404);
-    expect((await call(tokenOne.DELETE, { method: "DELETE", params: { tokenId: "nope" } })).status).toBe(404);
+    const notId = await call(tokenOne.DELETE, { method: "DELETE", params: { tokenId: "nope" } });
+    expect(notId.status).toBe(422);
+    expect(notId.body.error!.issues[0]!.path).toBe("tokenId");
     expect((await ApiToken.findByPk(token.id))!.revokedAt).toBeNull();
   });
 });

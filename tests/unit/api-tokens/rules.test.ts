@@ -63,6 +63,7 @@ describe("token rules", () => {
     expect(paths({ name: "", role: "owner", expiresInDays: 0 })).toEqual(["expiresInDays", "name", "role"]);
     expect(paths({ name: "a\u0000b", role: "viewer", expiresInDays: 1.5 })).toEqual(["expiresInDays", "name"]);
     expect(paths({ name: "\ud800", role: "viewer", expiresInDays: 367 })).toEqual(["expiresInDays", "name"]);
+    expect(paths({ name: "bell\u0007", role: "viewer", expiresInDays: 7 })).toEqual(["name"]);
     expect(parseOrThrow(createApiTokenSchema, { name: "  nightly export ", role: "viewer", expiresInDays: 366 })).toEqual({ name: "nightly export", role: "viewer", expiresInDays: 366 });
   });
 });

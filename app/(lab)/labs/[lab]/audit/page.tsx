@@ -1,5 +1,5 @@
-import { pageLabAccess } from "@/lib/server/page-access";
-import { listAudit, listAuditFilters } from "@/lib/members/list-audit";
+import { pageLabAccess } from "@/lib/auth/page-access";
+import { listAudit, listAuditFilters } from "@/lib/members/server/list-audit";
 import { auditQuerySchema } from "@/lib/audit/schemas";
 import { AuditLogClient } from "@/components/audit/audit-log-client";
 

@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { isNavMenu, navMenuFor, SETTINGS_NAV } from "@/lib/navigation";
 import { SettingsNav } from "@/components/shell/settings-nav";
 

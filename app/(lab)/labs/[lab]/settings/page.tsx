@@ -1,5 +1,5 @@
 import { notFound, redirect } from "next/navigation";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { navMenuFor, SETTINGS_NAV, isNavMenu } from "@/lib/navigation";
 
 /** /settings opens the first settings page the role may open. */

@@ -1,4 +1,4 @@
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { listApiTokens } from "@/lib/api-tokens/server/list-api-tokens";
 import { grantableTokenRoles } from "@/lib/api-tokens/rules";
 import { serverEnv } from "@/lib/server/env";
