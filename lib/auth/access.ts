@@ -3,7 +3,7 @@ import { cache } from "react";
 import { AppError } from "@/lib/errors/app-error";
 import { Lab, Membership } from "@/lib/server/models";
 import { authenticateApiToken } from "@/lib/api-tokens/server/authenticate-api-token";
-import { requestBearer } from "@/lib/api-tokens/server/request-token";
+import { readRequestBearer } from "@/lib/api-tokens/server/read-request-token";
 import { can, type Permission } from "./permissions";
 import { ROLE_LABELS, type Role } from "./roles";
 import { requireUser, type SessionUser } from "./session";
@@ -52,7 +52,7 @@ const membershipAccess = cache(async (userId: string, labSlug: string): Promise<
  * without) and a membership of the lab (`authorizeLab`).
  */
 export async function requireLabAccess(labSlug: string, permission?: Permission): Promise<LabAccess & { user: SessionUser }> {
-  const bearer = await requestBearer();
+  const bearer = await readRequestBearer();
   if (bearer !== null) return tokenLabAccess(bearer, labSlug, permission);
   const user = await requireUser();
   const access = await authorizeLab({ userId: user.id, labSlug, permission });

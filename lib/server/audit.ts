@@ -1,7 +1,7 @@
 import "server-only";
 import type { Transaction } from "sequelize";
 import { AuditEntry } from "@/lib/server/models";
-import { requestApiToken } from "@/lib/api-tokens/server/request-token";
+import { readRequestToken } from "@/lib/api-tokens/server/read-request-token";
 
 export interface AuditInput {
   labId: string | null;
@@ -20,7 +20,7 @@ export interface AuditInput {
  * actor too (`actorTokenId`), so the log names the token that made the change.
  */
 export async function audit(entry: AuditInput, transaction?: Transaction): Promise<void> {
-  const token = entry.labId ? await requestApiToken(transaction) : null;
+  const token = entry.labId ? await readRequestToken(transaction) : null;
   await AuditEntry.create(
     {
       labId: entry.labId,

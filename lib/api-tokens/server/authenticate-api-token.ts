@@ -4,7 +4,7 @@ import { AppError } from "@/lib/errors/app-error";
 import type { Role } from "@/lib/auth/roles";
 import { Membership, User, ApiToken } from "@/lib/server/models";
 import { tokenState } from "../rules";
-import { findTokenBySecret } from "./find-token";
+import { findTokenBySecret } from "./find-token-by-secret";
 
 export interface AuthenticatedToken {
   id: string;

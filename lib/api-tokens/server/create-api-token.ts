@@ -8,7 +8,7 @@ import { ApiToken } from "@/lib/server/models";
 import { grantableTokenRoles, tokenExpiry } from "../rules";
 import { createApiTokenSchema, type CreatedApiToken } from "../schemas";
 import { newTokenSecret } from "../secret";
-import { tokenRows } from "./token-row";
+import { toTokenRows } from "./to-token-rows";
 
 /**
  * Creates a lab API token with a name, a role and a lifetime, and returns its secret (the
@@ -39,7 +39,7 @@ export async function createApiToken(opts: { labId: string; actorUserId: string;
       { labId: opts.labId, actorUserId: opts.actorUserId, action: "api_token.created", entityType: "api_token", entityId: token.id, after: { name: token.name, role: token.role, selector, expiresAt: token.expiresAt.toISOString() } },
       tx,
     );
-    const [row] = await tokenRows([token], now, tx);
+    const [row] = await toTokenRows([token], now, tx);
     return { token: row!, secret };
   });
 }

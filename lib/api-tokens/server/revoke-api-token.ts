@@ -6,7 +6,7 @@ import { inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { ApiToken } from "@/lib/server/models";
 import type { ApiTokenRow } from "../schemas";
-import { tokenRows } from "./token-row";
+import { toTokenRows } from "./to-token-rows";
 
 /**
  * Revokes one token of the lab: it stops working at once (401 from then on). Revoking a
@@ -28,7 +28,7 @@ export async function revokeApiToken(opts: { labId: string; actorUserId: string;
         tx,
       );
     }
-    const [row] = await tokenRows([token], now, tx);
+    const [row] = await toTokenRows([token], now, tx);
     return row!;
   });
 }

@@ -5,7 +5,7 @@ import { tokenState } from "../rules";
 import type { ApiTokenRow } from "../schemas";
 
 /** Tokens as rows for people (creator names looked up in one query). */
-export async function tokenRows(tokens: ApiToken[], now: Date, t?: Transaction): Promise<ApiTokenRow[]> {
+export async function toTokenRows(tokens: ApiToken[], now: Date, t?: Transaction): Promise<ApiTokenRow[]> {
   const ids = [...new Set(tokens.map((k) => k.createdBy))];
   const names = new Map((await User.findAll({ where: { id: ids }, transaction: t })).map((u) => [u.id, u.name]));
   return tokens.map((k) => ({

@@ -10,7 +10,7 @@ import { bearerCredentials, parseTokenSecret, sameHash } from "../secret";
  * has none. Outside a request (the command line, a script, a unit of work started by a
  * test) there is no header: null. Next's own control-flow errors are passed on.
  */
-export async function requestBearer(): Promise<string | null> {
+export async function readRequestBearer(): Promise<string | null> {
   let authorization: string | null;
   try {
     authorization = (await headers()).get("authorization");
@@ -27,8 +27,8 @@ export async function requestBearer(): Promise<string | null> {
  * the caller's transaction `t`, so an audit entry written inside a transaction never waits
  * for a second connection of the pool.
  */
-export async function requestApiToken(t?: Transaction): Promise<{ id: string; labId: string } | null> {
-  const presented = await requestBearer();
+export async function readRequestToken(t?: Transaction): Promise<{ id: string; labId: string } | null> {
+  const presented = await readRequestBearer();
   const parsed = presented === null ? null : parseTokenSecret(presented);
   if (!parsed) return null;
   const token = await ApiToken.findOne({ where: { selector: parsed.selector }, attributes: ["id", "labId", "secretHash"], transaction: t });
