@@ -45,6 +45,8 @@ const LABELS: Record<string, string> = {
 
 /** Units written after a field's number (PRODUCT.md "Look": units always next to numbers). */
 const UNITS: Record<string, string> = { molarMass: "g/mol", density: "g/mL", purityPercent: "%", sizeBytes: "bytes" };
+/** Decimal fields whose unit is given by another field (shown as numbers, trailing zeros dropped). */
+const DECIMALS = new Set(["concentration"]);
 
 /** "molarMass" → "molar mass"; known fields have their own label. */
 export function fieldLabel(field: string): string {
@@ -83,7 +85,8 @@ export function formatValue(value: unknown, field = "", context: { dimension?: D
   const dateTime = /^(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2})(:\d{2}(\.\d+)?)?(Z|[+-]00:00)$/.exec(text);
   if (dateTime) return `${dateTime[1]} ${dateTime[2]} UTC`;
   const unit = UNITS[field];
-  return unit && /^-?\d+(\.\d+)?$/.test(text) ? `${trimZeros(text)} ${unit}` : text;
+  if (unit && /^-?\d+(\.\d+)?$/.test(text)) return `${trimZeros(text)} ${unit}`;
+  return DECIMALS.has(field) && /^-?\d+(\.\d+)?$/.test(text) ? trimZeros(text) : text;
 }
 
 /** "199.0900" → "199.09" (database decimals carry their scale). */
@@ -120,6 +123,8 @@ export function auditChanges(before: unknown, after: unknown, context: { dimensi
     if (same(bv, av)) continue;
     const bs = b ? formatValue(bv, field, dimensionFor(b, field, context.dimension)) : null;
     const as = a ? formatValue(av, field, dimensionFor(a, field, context.dimension)) : null;
+    // The same value written differently (the database's "0.8890" and the form's "0.889") is no change.
+    if (b && a && bs === as) continue;
     // A record made or removed: leave out what was not set (empty lists, "no" flags).
     if (oneSided) {
       const shown = bs ?? as;

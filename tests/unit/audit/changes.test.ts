@@ -35,6 +35,14 @@ describe("auditChanges", () => {
     ]);
   });
 
+  it("a value written differently but equal for people (database scale vs typed) is no change", () => {
+    expect(auditChanges({ density: "0.8890", molarMass: "72.1100", concentration: "0.500", storageNotes: "a" }, { density: "0.889", molarMass: "72.11", concentration: "0.5", storageNotes: "b" })).toEqual([
+      { field: "storageNotes", label: "storage notes", before: "a", after: "b" },
+    ]);
+    // Text that only looks like a number is compared as written (a lot "1.50" is not "1.5").
+    expect(auditChanges({ lot: "1.50" }, { lot: "1.5" })).toEqual([{ field: "lot", label: "lot", before: "1.50", after: "1.5" }]);
+  });
+
   it("shows yes/no for flags and units next to numbers", () => {
     expect(auditChanges({ pyrophoric: false, molarMass: "72.1060" }, { pyrophoric: true, molarMass: "72.11" })).toEqual([
       { field: "pyrophoric", label: "pyrophoric", before: "no", after: "yes" },
