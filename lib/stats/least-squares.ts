@@ -6,30 +6,27 @@
  * factorisation, and the coefficients are rescaled afterwards. The normal equations
  * are never formed. A column whose scaled R diagonal |r_jj| (its distance from the
  * span of the earlier columns) falls below `tol` is reported as aliased and left out.
- * The factorisation works in place on a column-major Float64Array (the matrices come
- * in as ml-matrix `Matrix`).
+ * The factorisation is ml-matrix's QrDecomposition; column-major Float64Array inputs
+ * are accepted for the callers that build their model matrix that way.
  */
-import type { Matrix } from "ml-matrix";
+import { Matrix, QrDecomposition } from "ml-matrix";
 
 /** Default aliasing tolerance on the scaled R diagonal. */
 export const ALIAS_TOLERANCE = 1e-10;
 
 /**
  * A Householder QR factorisation of a column-scaled matrix, Xs = X·diag(norms)⁻¹ = Q·R,
- * with Q kept implicitly as its reflectors H_j = I − v_j v_j'·2/(v_j'v_j).
+ * computed by ml-matrix's QrDecomposition (Q kept implicitly as its reflectors).
  */
 export interface ScaledQr {
   n: number;
   p: number;
-  /** The scaled matrix Xs, n×p row-major. */
+  /** Scaled X, row-major (n×p). */
   Xs: Float64Array;
   /** R of the scaled matrix, p×p row-major, upper triangular. */
   R: Float64Array;
   norms: number[];
-  /** The reflectors: column j holds v_j in rows j…n−1 (n×p, column-major). */
-  V: Float64Array;
-  /** v_j'v_j of each reflector (0: no reflection). */
-  vv: Float64Array;
+  qr: QrDecomposition;
 }
 
 /** The least-squares fit of y on the columns of X that are estimable, in column order. */
@@ -53,9 +50,13 @@ export interface LeastSquaresFit {
   z: number[];
 }
 
-/** Column-scaled Householder QR (Golub & Van Loan, Algorithm 5.2.1) of an n×p matrix given column-major. */
+/**
+ * Column-scaled Householder QR of an n×p matrix given column-major (left unchanged):
+ * each column divided by its Euclidean norm, then factorised by ml-matrix.
+ */
 function scaledQrOf(A: Float64Array, n: number, p: number): ScaledQr {
   const norms: number[] = [];
+  const scaled = new Matrix(n, p);
   const Xs = new Float64Array(n * p);
   for (let j = 0; j < p; j++) {
     const o = j * n;
@@ -65,42 +66,19 @@ function scaledQrOf(A: Float64Array, n: number, p: number): ScaledQr {
     norms.push(d);
     for (let i = 0; i < n; i++) {
       const v = A[o + i]! / d;
-      A[o + i] = v;
+      scaled.set(i, j, v);
       Xs[i * p + j] = v;
     }
   }
+  const qr = new QrDecomposition(scaled);
+  const Rm = qr.upperTriangularMatrix;
   const R = new Float64Array(p * p);
-  const vv = new Float64Array(p);
-  for (let j = 0; j < p && j < n; j++) {
-    const o = j * n;
-    let sigma = 0;
-    for (let i = j; i < n; i++) sigma += A[o + i]! ** 2;
-    sigma = Math.sqrt(sigma);
-    if (sigma === 0) {
-      R[j * p + j] = 0;
-      continue;
-    }
-    const x0 = A[o + j]!;
-    const alpha = x0 > 0 ? -sigma : sigma;
-    A[o + j] = x0 - alpha; // v = x − αe₁, kept in place of x
-    const vtv = sigma * sigma - x0 * x0 + (x0 - alpha) ** 2;
-    vv[j] = vtv;
-    const v = A.subarray(o + j, o + n);
-    const m = n - j;
-    for (let k = j + 1; k < p; k++) {
-      const c = A.subarray(k * n + j, k * n + n);
-      let dot = 0;
-      for (let i = 0; i < m; i++) dot += v[i]! * c[i]!;
-      const f = (2 * dot) / vtv;
-      for (let i = 0; i < m; i++) c[i]! -= f * v[i]!;
-      R[j * p + k] = c[0]!;
-    }
-    R[j * p + j] = alpha;
-  }
-  return { n, p, Xs, R, norms, V: A, vv };
+  const rows = Math.min(n, p);
+  for (let i = 0; i < rows; i++) for (let j = i; j < p; j++) R[i * p + j] = Rm.get(i, j);
+  return { n, p, Xs, R, norms, qr };
 }
 
-/** Column-scaled Householder QR of X. */
+/** Column-scaled Householder QR of X (ml-matrix's QrDecomposition). */
 export function scaledQr(X: Matrix): ScaledQr {
   const n = X.rows;
   const p = X.columns;
@@ -109,32 +87,9 @@ export function scaledQr(X: Matrix): ScaledQr {
   return scaledQrOf(A, n, p);
 }
 
-/** z = Q'y from the reflectors (all n entries). */
-function applyQt(f: ScaledQr, y: readonly number[]): Float64Array {
-  const { n, p, V, vv } = f;
-  const z = Float64Array.from(y);
-  for (let j = 0; j < p && j < n; j++) {
-    if (vv[j] === 0) continue;
-    const o = j * n;
-    let dot = 0;
-    for (let i = j; i < n; i++) dot += V[o + i]! * z[i]!;
-    const g = (2 * dot) / vv[j]!;
-    for (let i = j; i < n; i++) z[i]! -= g * V[o + i]!;
-  }
-  return z;
-}
-
-/** The scaled least-squares solution bs of R·bs = (Q'y)[0..p) by back-substitution. */
+/** The scaled least-squares solution bs (ml-matrix `solve`: Q'y, then R·bs = (Q'y)[0..p)). */
 function solveScaled(f: ScaledQr, y: readonly number[]): number[] {
-  const { p, R } = f;
-  const z = applyQt(f, y);
-  const b = new Array<number>(p).fill(0);
-  for (let i = p - 1; i >= 0; i--) {
-    let s = z[i]!;
-    for (let k = i + 1; k < p; k++) s -= R[i * p + k]! * b[k]!;
-    b[i] = s / R[i * p + i]!;
-  }
-  return b;
+  return f.qr.solve(Matrix.columnVector([...y])).getColumn(0);
 }
 
 function upperInverse(R: Float64Array, p: number): Float64Array {
@@ -260,7 +215,7 @@ export function leastSquaresQR(X: Matrix, y: readonly number[], tol = ALIAS_TOLE
 export function leastSquaresColumns(A: Float64Array, n: number, p: number, y: readonly number[], tol = ALIAS_TOLERANCE, options: { diagnostics?: boolean } = {}): LeastSquaresFit {
   if (n !== y.length) throw new RangeError(`X has ${n} rows but y has ${y.length} values`);
   if (A.length !== n * p) throw new RangeError(`X should hold ${n}×${p} values`);
-  let f = scaledQrOf(A.slice(), n, p);
+  let f = scaledQrOf(A, n, p);
   const { kept, aliased } = splitByDiagonal(f, tol);
   if (kept.length === 0) throw new RangeError("no estimable column");
   if (aliased.length) {
@@ -300,6 +255,6 @@ export function fullFitOfSubset(fit: LeastSquaresFit, cols: readonly number[], y
       const c = cols[j]!;
       Xs[i * s + j] = (parent.Xs[i * p + c]! * parent.norms[c]!) / small.norms[j]!;
     }
-  const f: ScaledQr = { n, p: s, Xs, R: small.R, norms: small.norms, V: small.V, vv: small.vv };
+  const f: ScaledQr = { n, p: s, Xs, R: small.R, norms: small.norms, qr: small.qr };
   return finishFit(f, bs, y, cols.map((c) => fit.kept[c]!), []);
 }

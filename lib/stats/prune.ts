@@ -5,7 +5,7 @@
  * Vining, Introduction to Linear Regression Analysis, §7.1 on polynomial models;
  * section from memory),
  * recording each step and why. One factorisation of the full model; each removal
- * updates it by Givens rotations (lib/stats/qr-update.ts), so no step refits the n rows.
+ * updates its p×p triangle as columns leave (lib/stats/qr-update.ts), so no step refits the n rows.
  */
 import { tTwoSidedP } from "./distributions";
 import type { LeastSquaresFit } from "./least-squares";

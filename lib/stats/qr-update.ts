@@ -1,12 +1,14 @@
 /**
  * A least-squares fit that loses columns one at a time without touching the n rows
  * again: the triangular factor R (p×p) of X = QR and z = Q'y are kept, and deleting a
- * column restores R to triangular form by Givens rotations applied to R and z (Golub &
- * Van Loan, Matrix Computations, 4th ed., §6.5 "Updating matrix factorizations",
- * deleting a column — section number from memory). The rotated-out component of z
- * joins the residual sum of squares. O(p²) per deletion; the coefficients and their
- * variances then cost one p×p back-substitution.
+ * column re-triangularises the p×(p−1) remainder (Golub & Van Loan, Matrix
+ * Computations, 4th ed., §6.5 "Updating matrix factorizations", deleting a column —
+ * section number from memory; the small factorisation is ml-matrix's). The part of z
+ * that leaves joins the residual sum of squares. O(p³) per deletion with p ≤ ~30,
+ * independent of n; the coefficients and their variances then cost one p×p
+ * back-substitution.
  */
+import { Matrix, QrDecomposition } from "ml-matrix";
 import type { LeastSquaresFit } from "./least-squares";
 
 /** The column-deleting QR of a fit: starts from the fit's scaled R and Q'y. */
@@ -37,37 +39,36 @@ export class ShrinkingQr {
   }
 
   /**
-   * Deletes the column at position `pos` (0-based among the current columns): shifts
-   * the later columns left, then zeroes the subdiagonal with Givens rotations on rows
-   * (j, j+1), j = pos … size−2, applied to z too; z's last entry leaves into the RSS.
+   * Deletes the column at position `pos` (0-based among the current columns): the
+   * s×(s−1) matrix R without that column is factorised again (ml-matrix's
+   * QrDecomposition — an s×s problem, never the n rows), which gives the new triangle
+   * R₂ and the new head of z; the part of z that R₂'s span no longer reaches joins the
+   * RSS.
    */
   remove(pos: number): void {
     const s = this.size;
     if (!(pos >= 0 && pos < s)) throw new RangeError(`no column at position ${pos}`);
     const { R, z, stride: m } = this;
-    for (let i = 0; i < s; i++) for (let j = pos; j < s - 1; j++) R[i * m + j] = R[i * m + j + 1]!;
-    for (let i = 0; i < s; i++) R[i * m + s - 1] = 0;
-    for (let j = pos; j < s - 1; j++) {
-      const a = R[j * m + j]!;
-      const b = R[(j + 1) * m + j]!;
-      const r = Math.hypot(a, b);
-      if (r === 0) continue;
-      const c = a / r;
-      const sn = b / r;
-      for (let k = j; k < s - 1; k++) {
-        const u = R[j * m + k]!;
-        const v = R[(j + 1) * m + k]!;
-        R[j * m + k] = c * u + sn * v;
-        R[(j + 1) * m + k] = -sn * u + c * v;
-      }
-      R[(j + 1) * m + j] = 0;
-      const zu = z[j]!;
-      const zv = z[j + 1]!;
-      z[j] = c * zu + sn * zv;
-      z[j + 1] = -sn * zu + c * zv;
+    const M = new Matrix(s, s - 1);
+    for (let i = 0; i < s; i++) for (let j = 0; j < s - 1; j++) M.set(i, j, R[i * m + (j < pos ? j : j + 1)]!);
+    const zHead = Array.from(z.subarray(0, s));
+    const qr = new QrDecomposition(M);
+    const b = qr.solve(Matrix.columnVector(zHead)).getColumn(0);
+    const R2 = qr.upperTriangularMatrix;
+    let lost = 0;
+    for (let i = 0; i < s; i++) {
+      let mb = 0;
+      for (let j = 0; j < s - 1; j++) mb += M.get(i, j) * b[j]!;
+      lost += (zHead[i]! - mb) ** 2;
     }
-    this.rss += z[s - 1]! ** 2;
+    for (let i = 0; i < s; i++) for (let j = 0; j < s; j++) R[i * m + j] = i < s - 1 && j < s - 1 && j >= i ? R2.get(i, j) : 0;
+    for (let i = 0; i < s - 1; i++) {
+      let v = 0;
+      for (let j = i; j < s - 1; j++) v += R2.get(i, j) * b[j]!;
+      z[i] = v;
+    }
     z[s - 1] = 0;
+    this.rss += lost;
     this.columns.splice(pos, 1);
     this.norms.splice(pos, 1);
   }

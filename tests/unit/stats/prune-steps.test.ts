@@ -60,7 +60,7 @@ describe("pruning with its steps (Montgomery Example 6.2)", () => {
   });
 });
 
-describe("column deletion by Givens rotations (Golub & Van Loan §6.5)", () => {
+describe("column deletion from the p×p triangle (Golub & Van Loan §6.5)", () => {
   it("matches a fresh least-squares fit of the remaining columns after each deletion (random data, computed in this test)", () => {
     const rng = seededRng(42);
     const n = 60;
