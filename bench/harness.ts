@@ -15,8 +15,8 @@ export interface BenchCase {
   setup?: () => unknown;
   /** The timed work; receives what setup returned. */
   run: (state: unknown) => unknown;
-  /** A figure to print beside the times (untimed), from the last run's output, e.g. a quality ratio. */
-  note?: (output: unknown) => string;
+  /** Extra lines printed under the case's result (a comparison, a check), not timed. */
+  note?: (result: BenchResult, state: unknown) => string[];
 }
 
 export interface BenchResult {
@@ -26,24 +26,22 @@ export interface BenchResult {
   maxMs: number;
   targetMs: number;
   repeat: number;
-  note?: string;
 }
 
-export function runCase(c: BenchCase): BenchResult {
+export function runCase(c: BenchCase): BenchResult & { notes: string[] } {
   const repeat = c.repeat ?? 15;
   const warmup = c.warmup ?? 3;
   const state = c.setup ? c.setup() : undefined;
   for (let i = 0; i < warmup; i++) c.run(state);
   const times: number[] = [];
-  let output: unknown;
   for (let i = 0; i < repeat; i++) {
     const t0 = performance.now();
-    output = c.run(state);
+    c.run(state);
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);
   const mid = Math.floor(times.length / 2);
   const median = times.length % 2 ? times[mid]! : (times[mid - 1]! + times[mid]!) / 2;
-  const note = c.note ? c.note(output) : undefined;
-  return { name: c.name, medianMs: median, minMs: times[0]!, maxMs: times[times.length - 1]!, targetMs: c.targetMs, repeat, note };
+  const result: BenchResult = { name: c.name, medianMs: median, minMs: times[0]!, maxMs: times[times.length - 1]!, targetMs: c.targetMs, repeat };
+  return { ...result, notes: c.note ? c.note(result, state) : [] };
 }

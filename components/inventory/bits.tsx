@@ -1,4 +1,4 @@
-import type { AmountView, ContainerRow } from "@/lib/schemas/inventory";
+import type { AmountView, ContainerRow } from "@/inventory/schemas";
 
 /** An amount with its unit, in tabular figures, never wrapped between number and unit. */
 export function Amount({ value, testId }: { value: AmountView | null | undefined; testId?: string }) {
@@ -53,7 +53,7 @@ export function PageHeader({ title, children, actions }: { title: string; childr
   return (
     <div className="flex flex-wrap items-end justify-between gap-3">
       <div>
-        <p className="text-sm uppercase tracking-wide text-copper">Inventory</p>
+        <p className="text-sm uppercase tracking-wide text-ink-faint">Inventory</p>
         <h1>{title}</h1>
         {children && <p className="mt-1 max-w-3xl text-sm text-ink-soft">{children}</p>}
       </div>

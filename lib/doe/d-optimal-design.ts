@@ -10,18 +10,28 @@ import { buildTerms, isSquareTerm } from "../stats/model-terms";
 import { parseConstraints, satisfiesAll } from "./constraints";
 import type { DesignInput } from "./design-schema";
 import { D_OPTIMAL_LIMITS, candidateMatrix, dOptimalWorkCheck, fedorovExchange, gridCandidateCount, gridCandidates } from "./d-optimal";
-import { codeValue, decodeValue, type Factor } from "./factors";
+import { codeValue, decodeValue } from "./factors";
+import { naturalRecord, type SafetyVerdict } from "./safe-envelope";
 
 /**
- * A caller's verdict on a point in natural units: false keeps it; true, or a reason
- * (a non-empty string), removes it. The hazard engine's point safety is passed as one,
- * so that no candidate a blocking caution would hit is ever used.
+ * A caller's verdict on a point in natural units: false (or a `SafetyVerdict` with no
+ * blocking caution) keeps it; true, a reason (a non-empty string) or a `SafetyVerdict`
+ * with blocking cautions removes it. The hazard engine's point safety (a `SafetyCheck`
+ * of safe-envelope.ts) is one, so that no candidate a blocking caution would hit is
+ * ever used.
  */
-export type PointVerdict = (natural: Readonly<Record<string, number>>) => boolean | string;
+export type PointVerdict = (natural: Record<string, number>) => boolean | string | SafetyVerdict;
+
+/** Why a verdict removes the point (the cautions' messages, the reason given, or "blocked"), or null when it keeps it. */
+export function removalReason(verdict: boolean | string | SafetyVerdict): string | null {
+  if (typeof verdict === "object") return verdict.blocking.length > 0 ? verdict.blocking.map((c) => c.message).join("; ") : null;
+  if (typeof verdict === "string") return verdict.length > 0 ? verdict : null;
+  return verdict ? "blocked" : null;
+}
 
 /** True when a verdict removes the point. */
-export function isRemoved(verdict: boolean | string): boolean {
-  return verdict === true || (typeof verdict === "string" && verdict.length > 0);
+export function isRemoved(verdict: boolean | string | SafetyVerdict): boolean {
+  return removalReason(verdict) !== null;
 }
 
 /** Summary of a D-optimal search (the `dOptimal` field of the design output). */
@@ -48,12 +58,6 @@ export interface DOptimalSummary {
 export interface DOptimalPointsOptions {
   /** Removes candidates (and refuses centre points) the caller's test blocks. */
   exclude?: PointVerdict;
-}
-
-function naturalRecord(factors: readonly Factor[], coded: readonly number[]): Record<string, number> {
-  const out: Record<string, number> = {};
-  factors.forEach((f, i) => (out[f.name] = decodeValue(f, coded[i]!)));
-  return out;
 }
 
 /** A key of a coded point to 1e-7, for matching `excludeCandidates` against candidates. */
@@ -87,12 +91,8 @@ export function dOptimalPoints(input: DesignInput, nCentre: number, options: DOp
     throw AppError.field("model", `has ${p} terms (at most ${D_OPTIMAL_LIMITS.terms}); list fewer terms`);
   }
   const constraints = parseConstraints(input.constraints, factors);
-  const blockedBy = (coded: readonly number[]): string | null => {
-    if (!options.exclude) return null;
-    const verdict = options.exclude(naturalRecord(factors, coded));
-    if (!isRemoved(verdict)) return null;
-    return typeof verdict === "string" ? verdict : "blocked";
-  };
+  const exclude = options.exclude;
+  const blockedBy = (coded: readonly number[]): string | null => (exclude ? removalReason(exclude(naturalRecord(factors, coded))) : null);
 
   if (nCentre > 0) {
     const centre = new Array<number>(k).fill(0);

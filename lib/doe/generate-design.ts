@@ -1,5 +1,5 @@
 /**
- * `generateDesign`: the CONTRACT.md `design` verb as a library function. Builds the
+ * `generateDesign`: the `design` verb (README) as a library function. Builds the
  * coded runs of the chosen design in standard order (factorial part in Yates order,
  * then axial points, then centre points; replicates repeat the whole list), assigns
  * blocks, decodes to natural units and sets a seeded random run order.
@@ -24,13 +24,14 @@ import {
 } from "./fractional";
 import { assignRunOrder, seededRng } from "./randomize";
 
-export type PointType = "factorial" | "axial" | "center" | "optimal";
+/** What a run is in its design (the run field `kind`). */
+export type RunKind = "factorial" | "axial" | "center" | "optimal";
 
-/** One run of a design (CONTRACT.md `design` output). */
+/** One run of a design (the `design` verb's output). */
 export interface DesignRun {
   standardOrder: number;
   runOrder: number;
-  pointType: PointType;
+  kind: RunKind;
   block: number;
   replicate: number;
   coded: Record<string, number>;
@@ -39,7 +40,7 @@ export interface DesignRun {
 
 export type { DOptimalSummary } from "./d-optimal-design";
 
-/** The CONTRACT.md `design` output, with added fields. */
+/** The `design` verb's output, with added fields. */
 export interface DesignOutput {
   design: DesignInput["design"];
   runs: DesignRun[];
@@ -62,7 +63,7 @@ export interface DesignOutput {
 
 interface Point {
   coded: number[];
-  pointType: PointType;
+  kind: RunKind;
   block: number;
   /** Natural values given by the caller (augmentation), kept exactly. */
   natural?: number[];
@@ -93,7 +94,7 @@ function factorialPoints(input: DesignInput, k: number, frac: FractionalFactoria
 }
 
 /**
- * Generates a design (CONTRACT.md `design`): full factorial 2^k (k ≤ 10), fractional
+ * Generates a design (the `design` verb): full factorial 2^k (k ≤ 10), fractional
  * factorial 2^(k−p) with given or minimum-aberration generators, central composite
  * (α rotatable F^¼, spherical √k, face-centred 1 or a number; circumscribed, or
  * inscribed with the axial points at the natural limits), Box–Behnken (k = 3…7) or
@@ -121,7 +122,7 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
   let nBlocks = 1;
 
   const centre = (count: number, blockOf: (j: number) => number) => {
-    for (let j = 0; j < count; j++) points.push({ coded: new Array<number>(k).fill(0), pointType: "center", block: blockOf(j) });
+    for (let j = 0; j < count; j++) points.push({ coded: new Array<number>(k).fill(0), kind: "center", block: blockOf(j) });
   };
 
   switch (input.design) {
@@ -131,7 +132,7 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
       const fp = factorialPoints(input, k, frac);
       blockWords = fp.blockWords;
       nBlocks = 2 ** blockWords.length;
-      for (const row of fp.rows) points.push({ coded: row, pointType: "factorial", block: blockOf(row, blockWords) });
+      for (const row of fp.rows) points.push({ coded: row, kind: "factorial", block: blockOf(row, blockWords) });
       centre(nCentre, (j) => (j % nBlocks) + 1);
       break;
     }
@@ -146,9 +147,9 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
           if (!isCentre && coded.some((v) => Math.abs(Math.abs(v) - 1) > 1e-6)) {
             throw AppError.field(`augment.runs.${i}`, "is neither a two-level factorial point (±1) nor a centre point");
           }
-          given.push({ coded, natural, pointType: isCentre ? "center" : "factorial", block: 1 });
+          given.push({ coded, natural, kind: isCentre ? "center" : "factorial", block: 1 });
         });
-        factorialRows = given.filter((g) => g.pointType === "factorial").map((g) => g.coded);
+        factorialRows = given.filter((g) => g.kind === "factorial").map((g) => g.coded);
         if (factorialRows.length < 2) throw AppError.field("augment.runs", "needs at least two factorial points");
       } else {
         frac = twoLevelPart(input, k);
@@ -162,21 +163,21 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
       if (input.augment) {
         points.push(...given);
       } else {
-        for (const row of factorialRows) points.push({ coded: row.map((v) => v * scale), pointType: "factorial", block: 1 });
+        for (const row of factorialRows) points.push({ coded: row.map((v) => v * scale), kind: "factorial", block: 1 });
       }
-      for (const row of axialPointsCoded(k, alpha)) points.push({ coded: row.map((v) => v * scale), pointType: "axial", block: axialBlock });
+      for (const row of axialPointsCoded(k, alpha)) points.push({ coded: row.map((v) => v * scale), kind: "axial", block: axialBlock });
       if (input.augment) centre(nCentre, () => 2);
       else centre(nCentre, (j) => (twoBlocks ? (j % 2) + 1 : 1));
       break;
     }
     case "box-behnken": {
-      for (const row of boxBehnkenCoded(k)) points.push({ coded: row, pointType: "factorial", block: 1 });
+      for (const row of boxBehnkenCoded(k)) points.push({ coded: row, kind: "factorial", block: 1 });
       centre(nCentre, () => 1);
       break;
     }
     case "d-optimal": {
       const d = dOptimalPoints(input, nCentre, options);
-      points = d.coded.map((coded) => ({ coded, pointType: "optimal", block: 1 }));
+      points = d.coded.map((coded) => ({ coded, kind: "optimal", block: 1 }));
       dSummary = d.summary;
       centre(nCentre, () => 1);
       break;
@@ -197,7 +198,7 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
         natural[f.name] = pt.natural ? pt.natural[i]! : decodeValue(f, c);
       });
       const block = input.blockByReplicate ? (rep - 1) * nBlocks + pt.block : pt.block;
-      runsOut.push({ standardOrder: so++, pointType: pt.pointType, block, replicate: rep, coded, natural });
+      runsOut.push({ standardOrder: so++, kind: pt.kind, block, replicate: rep, coded, natural });
     }
   }
 
@@ -214,7 +215,7 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
   const runs: DesignRun[] = runsOut.map((r, i) => ({
     standardOrder: r.standardOrder,
     runOrder: order[i]!,
-    pointType: r.pointType,
+    kind: r.kind,
     block: r.block,
     replicate: r.replicate,
     coded: r.coded,

@@ -1,9 +1,9 @@
 /**
- * The design engine's public API (interfaces.md): design input schema, generation,
+ * The design engine's public API: design input schema, generation,
  * factor coding, and the building blocks (fractions, CCD, Box–Behnken, D-optimal).
  */
 export { designInputSchema, givenRunSchema, plannedRunCount, DESIGN_KINDS, DESIGN_LIMITS, type DesignInput, type DesignInputRaw, type DesignKind } from "./design-schema";
-export { generateDesign, type DesignOutput, type DesignRun, type PointType, type DOptimalSummary } from "./generate-design";
+export { generateDesign, type DesignOutput, type DesignRun, type RunKind, type DOptimalSummary } from "./generate-design";
 export {
   factorSchema,
   factorListSchema,
@@ -67,7 +67,7 @@ export {
   type DOptimalOptions,
   type DOptimalResult,
 } from "./d-optimal";
-export { dOptimalPoints, isRemoved, type PointVerdict, type DOptimalPointsOptions } from "./d-optimal-design";
+export { dOptimalPoints, isRemoved, removalReason, type PointVerdict, type DOptimalPointsOptions } from "./d-optimal-design";
 export { designLogDet, dEfficiency, relativeDEfficiency, relativeDEfficiencyOfRuns, type NaturalRun } from "./d-efficiency";
 export {
   safeDesignAlternatives,
@@ -79,3 +79,6 @@ export {
   type SafeAlternatives,
   type SafeAlternativesOptions,
 } from "./safe-alternatives";
+export { augmentToCentralComposite, orthogonalBlockingAlpha, type AugmentOptions, type AugmentAlpha, type Augmentation, type AugmentRun } from "./augment";
+export { naturalRecord, blockingAt, type SafetyCheck, type SafetyVerdict, type BlockingCaution, type FactorLimit } from "./safe-envelope";
+export { formatNumber, formatFactorValue, formatNatural } from "./format";

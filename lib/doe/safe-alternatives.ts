@@ -15,7 +15,8 @@
  *
  * The module is pure and knows nothing of chemistry: the caller passes
  * `blocked(natural)` (false when the point is allowed; true or a reason when it is
- * not), normally the hazard engine's verdict. Every alternative is judged by
+ * not; or the hazard engine's `SafetyCheck` itself, blocking when it returns a blocking
+ * caution). Every alternative is judged by
  * generating it from its own `input` and calling `blocked` on every run, so an
  * alternative that says nothing blocks can be applied by generating `input` again.
  * D-efficiencies code both designs with the original factor ranges
@@ -26,10 +27,11 @@ import type { ModelSpec } from "../stats/model-terms";
 import { axialPointsCoded } from "./central-composite";
 import { designInputSchema, type DesignInput, type DesignInputRaw } from "./design-schema";
 import { D_OPTIMAL_LIMITS, gridCandidates } from "./d-optimal";
-import { isRemoved, type PointVerdict } from "./d-optimal-design";
+import { removalReason, type PointVerdict } from "./d-optimal-design";
 import { relativeDEfficiencyOfRuns } from "./d-efficiency";
-import { codeValue, decodeValue, type Factor } from "./factors";
+import { codeValue, type Factor } from "./factors";
 import { generateDesign, type DesignOutput } from "./generate-design";
+import { naturalRecord } from "./safe-envelope";
 
 /** The alternatives offered, in the order they are shown. */
 export const ALTERNATIVE_KINDS = ["face-centered", "inscribed", "smaller-alpha", "narrower-range", "d-optimal"] as const;
@@ -72,20 +74,10 @@ export interface SafeAlternativesOptions {
   model?: ModelSpec;
 }
 
-type Verdict = (natural: Readonly<Record<string, number>>) => string | null;
+type Verdict = (natural: Record<string, number>) => string | null;
 
 function verdictOf(blocked: PointVerdict): Verdict {
-  return (natural) => {
-    const v = blocked(natural);
-    if (!isRemoved(v)) return null;
-    return typeof v === "string" ? v : "blocked";
-  };
-}
-
-function decode(factors: readonly Factor[], coded: readonly number[]): Record<string, number> {
-  const out: Record<string, number> = {};
-  factors.forEach((f, i) => (out[f.name] = decodeValue(f, coded[i]!)));
-  return out;
+  return (natural) => removalReason(blocked(natural));
 }
 
 function judge(input: DesignInputRaw, verdict: Verdict, original: { factors: readonly Factor[]; model: ModelSpec; design: DesignOutput } | null): JudgedDesign {
@@ -183,7 +175,7 @@ export function safeDesignAlternatives(raw: unknown, blocked: PointVerdict, opti
   else if (input.augment || input.placement === "inscribed") {
     alternatives.push(unavailable("smaller-alpha", input.augment ? "an augmentation keeps the runs already made" : "the axial runs of an inscribed design sit at the factor limits"));
   } else {
-    const axialClear = (a: number) => axialPointsCoded(factors.length, a).every((x) => verdict(decode(factors, x)) === null);
+    const axialClear = (a: number) => axialPointsCoded(factors.length, a).every((x) => verdict(naturalRecord(factors, x)) === null);
     if (axialClear(alpha0)) alternatives.push(unavailable("smaller-alpha", "no axial run is blocked"));
     else {
       const found = alpha0 > 1 ? largestOk(1, alpha0, axialClear) : null;
@@ -287,12 +279,12 @@ function dOptimalAlternative(input: DesignInput, base: DesignInputRaw, originalD
   const candidates: Record<string, number>[] = [];
   let removed = 0;
   for (const x of all.values()) {
-    const natural = decode(factors, x);
+    const natural = naturalRecord(factors, x);
     if (verdict(natural) === null) candidates.push(natural);
     else removed++;
   }
   const n = originalDesign.runs.length;
-  const centreFree = verdict(decode(factors, new Array<number>(k).fill(0))) === null;
+  const centreFree = verdict(naturalRecord(factors, new Array<number>(k).fill(0))) === null;
   const nCentre = centreFree ? Math.min(originalDesign.runs.filter((r) => Object.values(r.coded).every((v) => v === 0)).length, n - 1) : 0;
   if (candidates.length === 0) return unavailable(kind, "every candidate point is blocked");
   const alt: DesignInputRaw = {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { AppError } from "../../../lib/errors/app-error";
-import { generateDesign, isRemoved, seededRng, type PointVerdict } from "../../../lib/doe";
+import { generateDesign, isRemoved, removalReason, seededRng, type PointVerdict, type SafetyCheck } from "../../../lib/doe";
 
 // Issue 10 item 5: the D-optimal alternative is searched over the candidate set less every
 // candidate the hazard engine blocks. The search must never use a removed candidate.
@@ -22,8 +22,18 @@ function errorOf(fn: () => unknown): AppError {
 }
 
 describe("candidate filter of the d-optimal design", () => {
-  it("true or a reason removes a point; false or an empty reason keeps it", () => {
+  it("true, a reason or a blocking caution removes a point; false, an empty reason or no caution keeps it", () => {
     expect([true, "boils", false, ""].map(isRemoved)).toEqual([true, true, false, false]);
+    const caution = { code: "TEST-1", message: "above the vial's rating" };
+    expect(isRemoved({ blocking: [] })).toBe(false);
+    expect(removalReason({ blocking: [caution, { ...caution, message: "needs sign-off" }] })).toBe("above the vial's rating; needs sign-off");
+  });
+
+  it("takes the safe envelope's SafetyCheck as it is (the hazard engine's point safety)", () => {
+    const check: SafetyCheck = (x) => ({ blocking: x.temperature! > 100 ? [{ code: "TEST-1", message: "above the vial's rating" }] : [] });
+    const d = generateDesign({ factors: F3, design: "d-optimal", runs: 14, levels: 5, seed: 4 }, { exclude: check });
+    for (const r of d.runs) expect(r.natural.temperature).toBeLessThanOrEqual(100);
+    expect(d.dOptimal!.candidatesExcluded).toBe(50);
   });
 
   it("removes every candidate the caller's test blocks, and counts them", () => {

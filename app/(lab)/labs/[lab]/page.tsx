@@ -1,8 +1,8 @@
 import Link from "next/link";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { navFor } from "@/lib/navigation";
 import { ROLE_LABELS } from "@/lib/auth/roles";
-import { listMembers } from "@/lib/members/list-members";
+import { listMembers } from "@/lib/members/server/list-members";
 
 export const metadata = { title: "Overview" };
 
@@ -14,7 +14,7 @@ export default async function LabOverviewPage({ params }: { params: Promise<{ la
   return (
     <div className="flex flex-col gap-6">
       <div>
-        <p className="text-sm uppercase tracking-wide text-copper">Lab overview</p>
+        <p className="text-sm uppercase tracking-wide text-ink-faint">Lab overview</p>
         <h1 data-testid="lab-name">{access.lab.name}</h1>
         <p className="mt-1 text-sm text-ink-soft">
           You are <span className="font-medium">{ROLE_LABELS[access.role].toLowerCase()}</span> here. The lab has{" "}
