@@ -23,6 +23,7 @@
  * work, and the search stops once `workBudget` multiply-adds are spent. Work is
  * counted, not timed, so a seed gives the same design on any machine.
  */
+import { CholeskyDecomposition, Matrix } from "ml-matrix";
 import { AppError } from "../errors/app-error";
 import { modelRow, type Term } from "../stats/model-terms";
 import { seededRng, type Rng } from "./randomize";
@@ -85,59 +86,39 @@ export interface DOptimalResult {
 }
 
 /**
- * Cholesky factor (lower, row-major) of a symmetric positive-definite p×p matrix, or
- * null when it is not positive definite.
+ * Cholesky factorisation (ml-matrix's CholeskyDecomposition) of a symmetric p×p matrix
+ * given row-major, or null when it is not positive definite.
  */
-export function cholesky(a: Float64Array, p: number): Float64Array | null {
-  const l = new Float64Array(p * p);
-  for (let j = 0; j < p; j++) {
-    let s = a[j * p + j]!;
-    for (let k = 0; k < j; k++) s -= l[j * p + k]! * l[j * p + k]!;
-    if (!(s > 0)) return null;
-    const d = Math.sqrt(s);
-    l[j * p + j] = d;
-    for (let i = j + 1; i < p; i++) {
-      let t = a[i * p + j]!;
-      for (let k = 0; k < j; k++) t -= l[i * p + k]! * l[j * p + k]!;
-      l[i * p + j] = t / d;
-    }
-  }
-  return l;
+export function cholesky(a: Float64Array, p: number): CholeskyDecomposition | null {
+  const m = new Matrix(p, p);
+  for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) m.set(i, j, a[i * p + j]!);
+  const chol = new CholeskyDecomposition(m);
+  return chol.isPositiveDefinite() ? chol : null;
 }
 
-/** ln det of a symmetric positive-definite matrix (−Infinity when singular). */
+/** ln det of a symmetric positive-definite matrix (−Infinity when singular): 2 Σ ln L_jj. */
 export function logDetSpd(a: Float64Array, p: number): number {
-  const l = cholesky(a, p);
-  if (!l) return -Infinity;
+  const chol = cholesky(a, p);
+  if (!chol) return -Infinity;
+  const L = chol.lowerTriangularMatrix;
   let s = 0;
-  for (let j = 0; j < p; j++) s += 2 * Math.log(l[j * p + j]!);
+  for (let j = 0; j < p; j++) s += 2 * Math.log(L.get(j, j));
   return s;
 }
 
-/** Inverse of a symmetric positive-definite matrix from its Cholesky factor, or null. */
+/** Inverse of a symmetric positive-definite matrix (row-major) through its Cholesky factorisation, or null. */
 export function inverseSpd(a: Float64Array, p: number): Float64Array | null {
-  const l = cholesky(a, p);
-  if (!l) return null;
-  // inv(L)
-  const li = new Float64Array(p * p);
-  for (let j = 0; j < p; j++) {
-    li[j * p + j] = 1 / l[j * p + j]!;
-    for (let i = j + 1; i < p; i++) {
-      let s = 0;
-      for (let k = j; k < i; k++) s -= l[i * p + k]! * li[k * p + j]!;
-      li[i * p + j] = s / l[i * p + i]!;
-    }
-  }
-  // inv(A) = inv(L)' inv(L)
-  const inv = new Float64Array(p * p);
+  const chol = cholesky(a, p);
+  if (!chol) return null;
+  const inv = chol.solve(Matrix.eye(p, p));
+  const out = new Float64Array(p * p);
   for (let i = 0; i < p; i++)
     for (let j = 0; j <= i; j++) {
-      let s = 0;
-      for (let k = i; k < p; k++) s += li[k * p + i]! * li[k * p + j]!;
-      inv[i * p + j] = s;
-      inv[j * p + i] = s;
+      const v = (inv.get(i, j) + inv.get(j, i)) / 2;
+      out[i * p + j] = v;
+      out[j * p + i] = v;
     }
-  return inv;
+  return out;
 }
 
 /** The information matrix X'X of the rows `indices` of the candidate model matrix F (N×p, row-major). */
