@@ -15,9 +15,12 @@ import { SafetyDataSheet } from "./safety-data-sheet";
 import { Container } from "./container";
 import { Reservation } from "./reservation";
 import { StockLedgerEntry } from "./stock-ledger-entry";
+import { Study } from "./study";
+import { Plan } from "./plan";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
+export { Study, Plan };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -32,6 +35,8 @@ export function initModels(sequelize: Sequelize): void {
   Container.initModel(sequelize);
   Reservation.initModel(sequelize);
   StockLedgerEntry.initModel(sequelize);
+  Study.initModel(sequelize);
+  Plan.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -42,4 +47,8 @@ export function initModels(sequelize: Sequelize): void {
   Container.belongsTo(Location, { foreignKey: "locationId", as: "location" });
   Chemical.hasMany(Container, { foreignKey: "chemicalId", as: "containers" });
   Reservation.belongsTo(Container, { foreignKey: "containerId", as: "container" });
+  Study.belongsTo(User, { foreignKey: "authorId", as: "author" });
+  Plan.belongsTo(User, { foreignKey: "authorId", as: "author" });
+  Plan.belongsTo(Study, { foreignKey: "studyId", as: "study" });
+  Study.hasMany(Plan, { foreignKey: "studyId", as: "plans" });
 }

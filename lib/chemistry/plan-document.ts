@@ -8,7 +8,7 @@
  */
 import { z } from "zod";
 import { factorSchema } from "../doe/factors";
-import { equipmentSchema, labThresholdsSchema } from "../hazards/thresholds";
+import { blockSchema, equipmentSchema, labThresholdsSchema } from "../hazards/thresholds";
 import { vesselTypeSchema, type VesselType } from "../hazards/vessels";
 
 /**
@@ -311,6 +311,8 @@ export const planDocumentSchema = z
       .transform((v, ctx): string | VesselType => (typeof v === "string" ? v : refineWith(v, vesselTypeSchema, ctx))),
     thresholds: labThresholdsSchema,
     equipment: equipmentSchema,
+    /** The heating or cooling block the runs sit in (optional; `equipment` holds its temperature limits). */
+    block: blockSchema.optional(),
     dispensing: dispensingSchema,
     /** ISO date used for container ages in the cautions (default today). */
     now: isoDate.optional(),

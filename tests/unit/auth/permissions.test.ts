@@ -19,6 +19,18 @@ const EXPECTED: Record<Permission, Role[]> = {
   "chemicals.manage": ["stockkeeper", "lab_admin"],
   "stock.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
   "stock.manage": ["stockkeeper", "lab_admin"],
+  // Studies, plans and lab settings (issue 10): chemists and lab admins plan; everyone reads;
+  // safety officers review and edit the hazard thresholds; lab admins edit equipment and limits.
+  "studies.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "studies.manage": ["chemist", "lab_admin"],
+  "plans.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "plans.edit": ["chemist", "lab_admin"],
+  "plans.review": ["safety_officer"],
+  "plans.release": ["chemist", "lab_admin"],
+  "plans.execute": ["chemist", "lab_admin"],
+  "settings.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "settings.equipment": ["lab_admin"],
+  "settings.thresholds": ["safety_officer"],
 };
 
 describe("permission table", () => {
