@@ -270,7 +270,7 @@ describe("plans API", () => {
   it("another lab's plan is 404 (read, edit, delete), and so is an id that cannot exist", async () => {
     const created = await createPlan(example());
     as(SEED.users.harrowChemist);
-    const harrow = (params: Record<string, string>) => ctx(params, SEED.labs.harrow.slug);
+    const harrow = <P extends Record<string, string>>(params: P) => ctx(params, SEED.labs.harrow.slug);
     expect((await planOne.GET(req("/x"), harrow({ plan: created.id }))).status).toBe(404);
     expect((await planOne.PUT(req("/x", "PUT", { document: example(), version: 1 }), harrow({ plan: created.id }))).status).toBe(404);
     expect((await planOne.DELETE(req("/x", "DELETE"), harrow({ plan: created.id }))).status).toBe(404);
