@@ -77,11 +77,16 @@ export const DEFAULT_BLOCKS: readonly LabBlock[] = [
   },
 ];
 
-export const vesselSettingsSchema = catalogSchema(vesselTypeSchema, "vessel type").prefault({
+/** The vessel-types section as a form edits it (no default for the whole section). */
+export const vesselCatalogSchema = catalogSchema(vesselTypeSchema, "vessel type");
+/** The blocks section as a form edits it. */
+export const blockCatalogSchema = catalogSchema(labBlockSchema, "block");
+
+export const vesselSettingsSchema = vesselCatalogSchema.prefault({
   defaultId: "vial-4ml-screw-septum",
   types: DEFAULT_VESSELS.map((v) => ({ ...v })),
 });
-export const blockSettingsSchema = catalogSchema(labBlockSchema, "block").prefault({
+export const blockSettingsSchema = blockCatalogSchema.prefault({
   defaultId: "block-al-24",
   types: DEFAULT_BLOCKS.map((b) => ({ ...b })),
 });
@@ -101,6 +106,14 @@ export type SettingsSection = (typeof SETTINGS_SECTIONS)[number];
 
 /** The schema of each section (what `PUT /settings/{section}` takes as `value`). */
 export const SETTINGS_SECTION_SCHEMAS = labSettingsSchema.shape;
+
+/** Each section's schema without its whole-section default: what the settings forms validate with (zodResolver). */
+export const SETTINGS_FORM_SCHEMAS = {
+  vessels: vesselCatalogSchema,
+  blocks: blockCatalogSchema,
+  dispensing: dispensingSchema.unwrap(),
+  thresholds: labThresholdsSchema.unwrap(),
+} as const;
 
 /** Who may edit each section: lab admins the equipment and limits, safety officers the thresholds. */
 export const SETTINGS_SECTION_PERMISSION: Record<SettingsSection, Permission> = {
