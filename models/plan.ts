@@ -45,7 +45,8 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "plans", underscored: true },
+      // modelName fixed: queries name the model ("Plan"."name"), and minified builds rename classes.
+      { sequelize, modelName: "Plan", tableName: "plans", underscored: true },
     );
   }
 }

@@ -32,7 +32,8 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "studies", underscored: true },
+      // modelName fixed: queries name the model ("Study"."id"), and minified builds rename classes.
+      { sequelize, modelName: "Study", tableName: "studies", underscored: true },
     );
   }
 }

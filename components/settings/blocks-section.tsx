@@ -9,7 +9,7 @@ import { SETTINGS_FORM_SCHEMAS, type LabSettings, type LabSettingsView } from "@
 import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
 import { NumberInput, TextInput } from "./fields";
-import { SectionCard } from "./section-card";
+import { READ_ONLY, SectionCard } from "./section-card";
 import { saveSection } from "./save-section";
 
 const schema = SETTINGS_FORM_SCHEMAS.blocks;
@@ -45,7 +45,7 @@ export function BlocksSection({ labSlug, value, version, editable, onSaved }: { 
       description={<>Each block holds 24, 48 or 96 vials over a temperature range. A run outside the range of the plan&apos;s block gets a caution; one block is used per temperature.</>}
     >
       <form onSubmit={onSubmit} noValidate>
-        <fieldset disabled={!editable} className="flex flex-col gap-3">
+        <fieldset disabled={!editable} className={`flex flex-col gap-3 ${READ_ONLY}`}>
           <Field label="Default block for new plans" htmlFor="blocks-defaultId" error={errors.defaultId?.message}>
             <select id="blocks-defaultId" className={`${inputClass} max-w-md`} {...register("defaultId")}>
               {watch("types").map((t, i) => (

@@ -7,7 +7,7 @@ import type { z } from "zod";
 import { SETTINGS_FORM_SCHEMAS, type LabSettings, type LabSettingsView } from "@/lib/lab-settings/schemas";
 import { Button } from "@/components/ui/button";
 import { NumberInput } from "./fields";
-import { SectionCard } from "./section-card";
+import { READ_ONLY, SectionCard } from "./section-card";
 import { saveSection } from "./save-section";
 
 const schema = SETTINGS_FORM_SCHEMAS.dispensing;
@@ -39,7 +39,7 @@ export function DispensingSection({ labSlug, value, version, editable, onSaved }
       description={<>What the lab can pipette and weigh. The run sheet makes stock solutions when a per-vial amount falls below these limits, and prepares extra for overage and the dead volume.</>}
     >
       <form onSubmit={onSubmit} noValidate>
-        <fieldset disabled={!editable} className="flex flex-col gap-3">
+        <fieldset disabled={!editable} className={`flex flex-col gap-3 ${READ_ONLY}`}>
           <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
             <NumberInput register={register} name="minPipetteVolumeUl" label="Smallest volume pipetted" unit="µL" error={e.minPipetteVolumeUl?.message} />
             <NumberInput register={register} name="minWeighMassMg" label="Smallest mass weighed" unit="mg" error={e.minWeighMassMg?.message} />

@@ -1,6 +1,9 @@
 import type { ReactNode } from "react";
 import { Banner } from "@/components/ui/banner";
 
+/** Inputs of a read-only section look read-only, not merely unresponsive. */
+export const READ_ONLY = "[&:disabled_input]:bg-paper-deep/60 [&:disabled_input]:text-ink-soft [&:disabled_select]:bg-paper-deep/60 [&:disabled_select]:text-ink-soft";
+
 /** One section of the settings page: title, what it is for, who edits it, and its form. */
 export function SectionCard({
   id,

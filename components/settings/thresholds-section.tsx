@@ -7,7 +7,7 @@ import type { z } from "zod";
 import { SETTINGS_FORM_SCHEMAS, type LabSettings, type LabSettingsView } from "@/lib/lab-settings/schemas";
 import { Button } from "@/components/ui/button";
 import { NumberInput } from "./fields";
-import { SectionCard } from "./section-card";
+import { READ_ONLY, SectionCard } from "./section-card";
 import { saveSection } from "./save-section";
 
 const schema = SETTINGS_FORM_SCHEMAS.thresholds;
@@ -45,7 +45,7 @@ export function ThresholdsSection({ labSlug, value, version, editable, onSaved }
       }
     >
       <form onSubmit={onSubmit} noValidate>
-        <fieldset disabled={!editable} className="flex flex-col gap-4">
+        <fieldset disabled={!editable} className={`flex flex-col gap-4 ${READ_ONLY}`}>
           <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
             <NumberInput register={register} name="safetyFactor" label="Safety factor on the vessel rating" unit="× rating" hint="0.5: the estimate may reach half the rating." error={e.safetyFactor?.message} />
             <NumberInput register={register} name="signOffTemperatureC" label="Sign-off needed from" unit="°C" error={e.signOffTemperatureC?.message} />

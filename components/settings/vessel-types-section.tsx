@@ -8,7 +8,7 @@ import { SETTINGS_FORM_SCHEMAS, type LabSettings, type LabSettingsView } from "@
 import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
 import { CheckboxInput, NumberInput, TextInput } from "./fields";
-import { SectionCard } from "./section-card";
+import { READ_ONLY, SectionCard } from "./section-card";
 import { saveSection } from "./save-section";
 
 const schema = SETTINGS_FORM_SCHEMAS.vessels;
@@ -60,7 +60,7 @@ export function VesselTypesSection({ labSlug, value, version, editable, onSaved 
       }
     >
       <form onSubmit={onSubmit} noValidate>
-        <fieldset disabled={!editable} className="flex flex-col gap-3">
+        <fieldset disabled={!editable} className={`flex flex-col gap-3 ${READ_ONLY}`}>
           <Field label="Default vessel for new plans" htmlFor="vessels-defaultId" error={errors.defaultId?.message}>
             <select id="vessels-defaultId" className={`${inputClass} max-w-md`} {...register("defaultId")}>
               {watch("types").map((t, i) => (

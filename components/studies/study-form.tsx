@@ -40,7 +40,7 @@ export function StudyForm({ labSlug }: { labSlug: string }) {
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5" data-testid="study-form">
       {message && <Banner tone="blocks">{message}</Banner>}
       <section className="grid gap-4 rounded-lg border border-ink-line bg-paper-card p-4 md:grid-cols-2">
-        <Field label="Name" htmlFor="name" error={errors.name?.message} hint="How the lab will find it, e.g. “Suzuki coupling of KB-ArBr-7”.">
+        <Field label="Study name" htmlFor="name" error={errors.name?.message} hint="How the lab will find it, e.g. “Suzuki coupling of KB-ArBr-7”.">
           <input id="name" className={inputClass} {...register("name")} />
         </Field>
         <Field label="Target product (optional)" htmlFor="targetProduct" error={errors.targetProduct?.message}>

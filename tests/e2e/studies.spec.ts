@@ -19,7 +19,7 @@ test("a chemist creates a study and sees it in the list and on its page", async 
   await expect(page.getByRole("heading", { name: "Studies", exact: true })).toBeVisible();
   await page.getByTestId("new-study").click();
 
-  await page.getByLabel("Name", { exact: true }).fill(name);
+  await page.getByLabel("Study name").fill(name);
   await page.getByLabel("Goal (optional)").fill("Maximise assay yield of the biaryl; keep the homocoupling impurity under 2 area %.");
   await page.getByLabel("Target product (optional)").fill("KB-Biaryl-1 (invented)");
   await page.getByRole("button", { name: "Add a response" }).click();

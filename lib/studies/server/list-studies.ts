@@ -6,7 +6,7 @@ import { Study } from "@/lib/server/models";
 import { studyQuerySchema, type StudyPage, type StudyQuery } from "../schemas";
 import { studyAuthor, studyRow } from "./common";
 
-/** The number of plans of each study, counted in the same query. */
+/** The number of plans of each study, counted in the same query ("Study" is the model name set in models/study.ts, stable in minified builds). */
 const PLAN_COUNT = literal(`(SELECT count(*)::int FROM plans p WHERE p.lab_id = "Study"."lab_id" AND p.study_id = "Study"."id")`);
 
 /**

@@ -68,7 +68,7 @@ export default async function StudyPage({ params }: { params: Promise<{ lab: str
                   <td className="py-1 pr-2">{RESPONSE_GOAL_LABELS[r.goal]}</td>
                   <td className="num py-1 pr-2 text-right">{r.target !== undefined ? `${r.target} ${r.unit}` : "—"}</td>
                   <td className="num py-1 text-right whitespace-nowrap">
-                    {r.low !== undefined || r.high !== undefined ? `${r.low ?? "…"} – ${r.high ?? "…"} ${r.unit}` : r.unit ? <span className="text-ink-faint">in {r.unit}</span> : "—"}
+                    {r.low !== undefined || r.high !== undefined ? `${r.low ?? "…"} – ${r.high ?? "…"} ${r.unit}` : "—"}
                   </td>
                 </tr>
               ))}
