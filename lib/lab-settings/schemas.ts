@@ -55,12 +55,14 @@ function catalogSchema<T extends z.ZodType<{ id: string }>>(item: T, noun: strin
     });
 }
 
-const BLOCK_SOURCE_HEATING = "REFERENCE.md §2: aluminium heating blocks 150 °C routine [common practice]; §5 block formats [common practice]. Lowest: room temperature.";
+const BLOCK_SOURCE_HEATING =
+  "Tareline default (common practice, not a maker's data): aluminium heating blocks are used to 150 °C routinely; block formats 24 × 4–8 mL, 48 × 2 mL, 96 × 1 mL vials. Lowest: room temperature. Confirm with the maker.";
 
 /**
- * Default blocks (REFERENCE.md §2 and §5, common practice; confirm with the maker): an
- * aluminium heating block in each format, and a 24-position cooling block in a
- * dry ice/acetone bath (−78 °C, the cooling default of lib/hazards/thresholds.ts).
+ * Default blocks (common practice, not a maker's data; a lab enters its own): an
+ * aluminium heating block in each usual format (96 × 1 mL, 48 × 2 mL, 24 × 4–8 mL vials),
+ * used to 150 °C routinely, and a 24-position cooling block in a dry ice/acetone bath
+ * (−78 °C, the cooling default of lib/hazards/thresholds.ts).
  */
 export const DEFAULT_BLOCKS: readonly LabBlock[] = [
   { id: "block-al-24", name: "Aluminium heating block, 24 positions (4 mL and 8 mL vials)", positions: 24, mode: "heating", minC: 20, maxC: 150, source: BLOCK_SOURCE_HEATING },
@@ -73,7 +75,7 @@ export const DEFAULT_BLOCKS: readonly LabBlock[] = [
     mode: "cooling",
     minC: -78,
     maxC: 25,
-    source: "Dry ice/acetone bath −78 °C [common practice]; up to room temperature as the bath warms.",
+    source: "Tareline default (common practice): a dry ice/acetone bath holds −78 °C; up to room temperature as it warms. Confirm with the lab's own method.",
   },
 ];
 

@@ -29,11 +29,11 @@ vi.mock("@/lib/auth/session", () => ({
 }));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
-const studyOne = await import("@/app/api/labs/[lab]/studies/[study]/route");
-const studyPlans = await import("@/app/api/labs/[lab]/studies/[study]/plans/route");
+const studyOne = await import("@/app/api/labs/[lab]/studies/[studyId]/route");
+const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
 const plans = await import("@/app/api/labs/[lab]/plans/route");
-const planOne = await import("@/app/api/labs/[lab]/plans/[plan]/route");
-const duplicate = await import("@/app/api/labs/[lab]/plans/[plan]/duplicate/route");
+const planOne = await import("@/app/api/labs/[lab]/plans/[planId]/route");
+const duplicate = await import("@/app/api/labs/[lab]/plans/[planId]/duplicate/route");
 
 const as = (u: { id: string; email: string }) => {
   who.user = { id: u.id, email: u.email, name: u.email };
@@ -74,7 +74,7 @@ let studyId = "";
 
 async function createPlan(document: Json, user: { id: string; email: string } = SEED.users.chemist): Promise<PlanJson> {
   as(user);
-  const res = await studyPlans.POST(req("/x", "POST", { document }), ctx({ study: studyId }));
+  const res = await studyPlans.POST(req("/x", "POST", { document }), ctx({ studyId: studyId }));
   expect(res.status).toBe(201);
   return ((await res.json()) as { plan: PlanJson }).plan;
 }
@@ -94,7 +94,7 @@ describe("plans API", () => {
     const created = await createPlan(example());
     expect(created).toMatchObject({ studyId, state: "draft", version: 1, signature: null, reservations: [], problem: null, runCount: 18 });
     as(SEED.users.viewer);
-    const res = await planOne.GET(req("/x"), ctx({ plan: created.id }));
+    const res = await planOne.GET(req("/x"), ctx({ planId: created.id }));
     expect(res.status).toBe(200);
     const { plan } = (await res.json()) as { plan: PlanJson };
     for (const key of ["id", "studyId", "name", "state", "version", "contentHash", "document", "runSheet", "cautions", "releasable", "signOffRequired", "signature", "reservations"]) expect(plan).toHaveProperty(key);
@@ -102,7 +102,7 @@ describe("plans API", () => {
     expect(plan.runSheet?.runs).toHaveLength(18); // 2^(5−1) = 16 runs + 2 centre points
     expect(plan.computedWith).toMatchObject({ vessel: example().vessel, dispensing: example().dispensing, equipment: example().equipment });
     // The study lists it with its run count and author.
-    const { plans: listed } = (await (await studyOne.GET(req("/x"), ctx({ study: studyId }))).json()) as { plans: Array<{ id: string; runCount: number; authorName: string; state: string }> };
+    const { plans: listed } = (await (await studyOne.GET(req("/x"), ctx({ studyId: studyId }))).json()) as { plans: Array<{ id: string; runCount: number; authorName: string; state: string }> };
     expect(listed.find((p) => p.id === plan.id)).toMatchObject({ runCount: 18, state: "draft" });
   });
 
@@ -117,7 +117,7 @@ describe("plans API", () => {
   it("runSheet and cautions equal the plan verb's output for the same document", async () => {
     const created = await createPlan(example());
     as(SEED.users.chemist);
-    const { plan } = (await (await planOne.GET(req("/x"), ctx({ plan: created.id }))).json()) as { plan: PlanJson };
+    const { plan } = (await (await planOne.GET(req("/x"), ctx({ planId: created.id }))).json()) as { plan: PlanJson };
     const verb = JSON.parse(JSON.stringify(await planVerb(plan.document))) as Json;
     const { cautions, signOffRequired, signOffReasons, releasable, perRun, notice, ...runSheet } = verb;
     expect(plan.runSheet).toEqual(runSheet);
@@ -141,15 +141,15 @@ describe("plans API", () => {
     const doc = example() as Json & { factors: Array<Json> };
     doc.factors[0]!.high = "hot";
     as(SEED.users.chemist);
-    const res = await studyPlans.POST(req("/x", "POST", { document: doc }), ctx({ study: studyId }));
+    const res = await studyPlans.POST(req("/x", "POST", { document: doc }), ctx({ studyId: studyId }));
     expect(res.status).toBe(422);
     expect(await issuePaths(res)).toEqual(["document.factors.0.high"]);
     // A design option only the design engine knows is named under document.design.
     const badAlpha = { ...example(), design: { design: "central-composite", alpha: "wobbly" }, factors: (example().factors as Json[]).slice(0, 2) };
-    const res2 = await studyPlans.POST(req("/x", "POST", { document: badAlpha }), ctx({ study: studyId }));
+    const res2 = await studyPlans.POST(req("/x", "POST", { document: badAlpha }), ctx({ studyId: studyId }));
     expect(res2.status).toBe(422);
     expect(await issuePaths(res2)).toEqual(["document.design.alpha"]);
-    const res3 = await studyPlans.POST(req("/x", "POST", { document: "not an object" }), ctx({ study: studyId }));
+    const res3 = await studyPlans.POST(req("/x", "POST", { document: "not an object" }), ctx({ studyId: studyId }));
     expect(await issuePaths(res3)).toEqual(["document"]);
     expect(await Plan.count()).toBe(before);
   });
@@ -168,14 +168,14 @@ describe("plans API", () => {
     const created = await createPlan(example());
     const doc = { ...created.document, factors: created.document.factors.map((f, i) => (i === 0 ? { ...f, high: 95 } : f)) };
     as(SEED.users.chemist);
-    const ok = await planOne.PUT(req("/x", "PUT", { document: doc, version: 1 }), ctx({ plan: created.id }));
+    const ok = await planOne.PUT(req("/x", "PUT", { document: doc, version: 1 }), ctx({ planId: created.id }));
     expect(ok.status).toBe(200);
     const updated = ((await ok.json()) as { plan: PlanJson }).plan;
     expect(updated.version).toBe(2);
     expect(updated.contentHash).not.toBe(created.contentHash);
     expect(updated.document.factors[0]!.high).toBe(95);
 
-    const stale = await planOne.PUT(req("/x", "PUT", { document: example(), version: 1 }), ctx({ plan: created.id }));
+    const stale = await planOne.PUT(req("/x", "PUT", { document: example(), version: 1 }), ctx({ planId: created.id }));
     expect(stale.status).toBe(409);
     expect(await issuePaths(stale)).toEqual(["version"]);
     const row = await Plan.findByPk(created.id);
@@ -188,11 +188,11 @@ describe("plans API", () => {
     expect(entries[1]!.after).toMatchObject({ version: 2, contentHash: updated.contentHash });
 
     // A save that changes nothing is not a new version.
-    const same = await planOne.PUT(req("/x", "PUT", { document: updated.document, version: 2 }), ctx({ plan: created.id }));
+    const same = await planOne.PUT(req("/x", "PUT", { document: updated.document, version: 2 }), ctx({ planId: created.id }));
     expect(((await same.json()) as { plan: PlanJson }).plan.version).toBe(2);
 
     // A bad field in an update is 422 and changes nothing.
-    const bad = await planOne.PUT(req("/x", "PUT", { document: { ...updated.document, recipe: { ...(updated.document.recipe as Json), scaleMmol: 0 } }, version: 2 }), ctx({ plan: created.id }));
+    const bad = await planOne.PUT(req("/x", "PUT", { document: { ...updated.document, recipe: { ...(updated.document.recipe as Json), scaleMmol: 0 } }, version: 2 }), ctx({ planId: created.id }));
     expect(bad.status).toBe(422);
     expect(await issuePaths(bad)).toEqual(["document.recipe.scaleMmol"]);
     expect((await Plan.findByPk(created.id))?.version).toBe(2);
@@ -202,11 +202,11 @@ describe("plans API", () => {
     const created = await createPlan(example());
     await Plan.update({ state: "in_review" }, { where: { id: created.id } });
     as(SEED.users.chemist);
-    const frozen = await planOne.PUT(req("/x", "PUT", { document: { ...created.document, name: "Changed" }, version: 1 }), ctx({ plan: created.id }));
+    const frozen = await planOne.PUT(req("/x", "PUT", { document: { ...created.document, name: "Changed" }, version: 1 }), ctx({ planId: created.id }));
     expect(frozen.status).toBe(409);
     expect(await issuePaths(frozen)).toEqual(["state"]);
     await Plan.update({ state: "approved" }, { where: { id: created.id } });
-    const edited = await planOne.PUT(req("/x", "PUT", { document: { ...created.document, name: "Changed after approval" }, version: 1 }), ctx({ plan: created.id }));
+    const edited = await planOne.PUT(req("/x", "PUT", { document: { ...created.document, name: "Changed after approval" }, version: 1 }), ctx({ planId: created.id }));
     expect(edited.status).toBe(200);
     expect(((await edited.json()) as { plan: PlanJson }).plan).toMatchObject({ state: "draft", version: 2, name: "Changed after approval" });
     const entry = await AuditEntry.findOne({ where: { entityType: "plan", entityId: created.id, action: "plan.updated" } });
@@ -217,19 +217,19 @@ describe("plans API", () => {
   it("duplicates into a new draft derived from the original, and deletes only drafts", async () => {
     const created = await createPlan(example());
     as(SEED.users.chemist);
-    const res = await duplicate.POST(req("/x", "POST", {}), ctx({ plan: created.id }));
+    const res = await duplicate.POST(req("/x", "POST", {}), ctx({ planId: created.id }));
     expect(res.status).toBe(201);
     const copy = ((await res.json()) as { plan: PlanJson }).plan;
     expect(copy).toMatchObject({ state: "draft", version: 1, derivedFromPlanId: created.id, derivation: "duplicate", name: `Copy of ${created.name}` });
     expect(copy.document.design.seed).toBe(created.document.design.seed);
 
-    const del = await planOne.DELETE(req("/x", "DELETE"), ctx({ plan: copy.id }));
+    const del = await planOne.DELETE(req("/x", "DELETE"), ctx({ planId: copy.id }));
     expect(del.status).toBe(200);
     expect(await Plan.findByPk(copy.id)).toBeNull();
     expect(await AuditEntry.count({ where: { entityType: "plan", entityId: copy.id, action: "plan.deleted" } })).toBe(1);
 
     await Plan.update({ state: "released" }, { where: { id: created.id } });
-    const refused = await planOne.DELETE(req("/x", "DELETE"), ctx({ plan: created.id }));
+    const refused = await planOne.DELETE(req("/x", "DELETE"), ctx({ planId: created.id }));
     expect(refused.status).toBe(409);
     expect(await Plan.findByPk(created.id)).not.toBeNull();
   });
@@ -257,11 +257,11 @@ describe("plans API", () => {
     const created = await createPlan(example());
     for (const u of [SEED.users.viewer, SEED.users.stockkeeper, SEED.users.safety]) {
       as(u);
-      expect((await planOne.GET(req("/x"), ctx({ plan: created.id }))).status).toBe(200);
-      expect((await studyPlans.POST(req("/x", "POST", { document: example() }), ctx({ study: studyId }))).status).toBe(403);
-      expect((await planOne.PUT(req("/x", "PUT", { document: { ...created.document, name: "No" }, version: 1 }), ctx({ plan: created.id }))).status).toBe(403);
-      expect((await duplicate.POST(req("/x", "POST", {}), ctx({ plan: created.id }))).status).toBe(403);
-      expect((await planOne.DELETE(req("/x", "DELETE"), ctx({ plan: created.id }))).status).toBe(403);
+      expect((await planOne.GET(req("/x"), ctx({ planId: created.id }))).status).toBe(200);
+      expect((await studyPlans.POST(req("/x", "POST", { document: example() }), ctx({ studyId: studyId }))).status).toBe(403);
+      expect((await planOne.PUT(req("/x", "PUT", { document: { ...created.document, name: "No" }, version: 1 }), ctx({ planId: created.id }))).status).toBe(403);
+      expect((await duplicate.POST(req("/x", "POST", {}), ctx({ planId: created.id }))).status).toBe(403);
+      expect((await planOne.DELETE(req("/x", "DELETE"), ctx({ planId: created.id }))).status).toBe(403);
     }
     const row = await Plan.findByPk(created.id);
     expect(row).toMatchObject({ version: 1, contentHash: created.contentHash });
@@ -271,13 +271,13 @@ describe("plans API", () => {
     const created = await createPlan(example());
     as(SEED.users.harrowChemist);
     const harrow = <P extends Record<string, string>>(params: P) => ctx(params, SEED.labs.harrow.slug);
-    expect((await planOne.GET(req("/x"), harrow({ plan: created.id }))).status).toBe(404);
-    expect((await planOne.PUT(req("/x", "PUT", { document: example(), version: 1 }), harrow({ plan: created.id }))).status).toBe(404);
-    expect((await planOne.DELETE(req("/x", "DELETE"), harrow({ plan: created.id }))).status).toBe(404);
-    expect((await studyPlans.POST(req("/x", "POST", { document: example() }), harrow({ study: studyId }))).status).toBe(404);
-    expect((await planOne.GET(req("/x"), ctx({ plan: created.id }))).status).toBe(404); // not a member of Kestrel Bay
+    expect((await planOne.GET(req("/x"), harrow({ planId: created.id }))).status).toBe(404);
+    expect((await planOne.PUT(req("/x", "PUT", { document: example(), version: 1 }), harrow({ planId: created.id }))).status).toBe(404);
+    expect((await planOne.DELETE(req("/x", "DELETE"), harrow({ planId: created.id }))).status).toBe(404);
+    expect((await studyPlans.POST(req("/x", "POST", { document: example() }), harrow({ studyId: studyId }))).status).toBe(404);
+    expect((await planOne.GET(req("/x"), ctx({ planId: created.id }))).status).toBe(404); // not a member of Kestrel Bay
     as(SEED.users.chemist);
-    expect((await planOne.GET(req("/x"), ctx({ plan: "12345" }))).status).toBe(404);
+    expect((await planOne.GET(req("/x"), ctx({ planId: "12345" }))).status).toBe(404);
     expect(await Plan.findByPk(created.id)).toMatchObject({ version: 1 });
   });
 });

@@ -28,7 +28,7 @@ vi.mock("@/lib/auth/session", () => ({
 const settings = await import("@/app/api/labs/[lab]/settings/route");
 const section = await import("@/app/api/labs/[lab]/settings/[section]/route");
 const studies = await import("@/app/api/labs/[lab]/studies/route");
-const studyPlans = await import("@/app/api/labs/[lab]/studies/[study]/plans/route");
+const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
 
 const as = (u: { id: string; email: string }) => {
   who.user = { id: u.id, email: u.email, name: u.email };
@@ -149,7 +149,7 @@ describe("lab settings API", () => {
     delete doc.dispensing;
     delete doc.equipment;
     doc.block = "block-al-24";
-    const res = await studyPlans.POST(req("POST", { document: doc }), ctx({ study: study.id }));
+    const res = await studyPlans.POST(req("POST", { document: doc }), ctx({ studyId: study.id }));
     expect(res.status).toBe(201);
     const { plan } = (await res.json()) as { plan: { computedWith: Json; document: Json; runSheet: { vessel: Json } } };
     const block = s.settings.blocks.types.find((b) => b.id === "block-al-24")!;

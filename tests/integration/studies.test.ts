@@ -21,7 +21,7 @@ vi.mock("@/lib/auth/session", () => ({
 }));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
-const studyOne = await import("@/app/api/labs/[lab]/studies/[study]/route");
+const studyOne = await import("@/app/api/labs/[lab]/studies/[studyId]/route");
 
 const as = (u: { id: string; email: string }) => {
   who.user = { id: u.id, email: u.email, name: u.email };
@@ -61,7 +61,7 @@ describe("studies API", () => {
     const { study } = (await res.json()) as StudyBody;
     expect(study).toMatchObject({ name: `Suzuki ${tag}`, version: 1, planCount: 0, archivedAt: null });
     expect(study.responses.map((r) => r.name)).toEqual(["yield", "homocoupling"]);
-    const got = await studyOne.GET(req("/x"), ctx({ study: study.id }));
+    const got = await studyOne.GET(req("/x"), ctx({ studyId: study.id }));
     expect(got.status).toBe(200);
     expect(await got.json()).toMatchObject({ study: { id: study.id, name: `Suzuki ${tag}` }, plans: [] });
     const entry = await AuditEntry.findOne({ where: { entityType: "study", entityId: study.id, action: "study.created" } });
@@ -93,10 +93,10 @@ describe("studies API", () => {
   it("updates with the version check: a stale version is 409 naming version and changes nothing", async () => {
     as(SEED.users.chemist);
     const { study } = (await (await studies.POST(req("/x", "POST", newStudy(`Versioned ${tag}`)), ctx({}))).json()) as StudyBody;
-    const ok = await studyOne.PATCH(req("/x", "PATCH", { version: 1, goal: "Minimise the impurity." }), ctx({ study: study.id }));
+    const ok = await studyOne.PATCH(req("/x", "PATCH", { version: 1, goal: "Minimise the impurity." }), ctx({ studyId: study.id }));
     expect(ok.status).toBe(200);
     expect(((await ok.json()) as StudyBody).study.version).toBe(2);
-    const stale = await studyOne.PATCH(req("/x", "PATCH", { version: 1, name: "Lost update" }), ctx({ study: study.id }));
+    const stale = await studyOne.PATCH(req("/x", "PATCH", { version: 1, name: "Lost update" }), ctx({ studyId: study.id }));
     expect(stale.status).toBe(409);
     expect(((await stale.json()) as { error: { issues: Array<{ path: string }> } }).error.issues.map((i) => i.path)).toEqual(["version"]);
     expect((await Study.findByPk(study.id))?.name).toBe(`Versioned ${tag}`);
@@ -105,12 +105,12 @@ describe("studies API", () => {
   it("archives a study out of the default list and restores it", async () => {
     as(SEED.users.admin);
     const { study } = (await (await studies.POST(req("/x", "POST", newStudy(`Archive ${tag}`)), ctx({}))).json()) as StudyBody;
-    expect(((await (await studyOne.DELETE(req("/x", "DELETE"), ctx({ study: study.id }))).json()) as StudyBody).study.archivedAt).not.toBeNull();
+    expect(((await (await studyOne.DELETE(req("/x", "DELETE"), ctx({ studyId: study.id }))).json()) as StudyBody).study.archivedAt).not.toBeNull();
     const listed = (await (await studies.GET(req(`/x?q=Archive ${tag}`), ctx({}))).json()) as { total: number };
     expect(listed.total).toBe(0);
     const archived = (await (await studies.GET(req(`/x?q=Archive ${tag}&archived=only`), ctx({}))).json()) as { total: number };
     expect(archived.total).toBe(1);
-    expect(((await (await studyOne.DELETE(req("/x?restore=1", "DELETE"), ctx({ study: study.id }))).json()) as StudyBody).study.archivedAt).toBeNull();
+    expect(((await (await studyOne.DELETE(req("/x?restore=1", "DELETE"), ctx({ studyId: study.id }))).json()) as StudyBody).study.archivedAt).toBeNull();
   });
 
   it("viewers, stockkeepers and safety officers read studies but may not create them (403)", async () => {
@@ -126,10 +126,10 @@ describe("studies API", () => {
     as(SEED.users.chemist);
     const { study } = (await (await studies.POST(req("/x", "POST", newStudy(`Private ${tag}`)), ctx({}))).json()) as StudyBody;
     as(SEED.users.harrowChemist);
-    expect((await studyOne.GET(req("/x"), ctx({ study: study.id }, SEED.labs.harrow.slug))).status).toBe(404);
+    expect((await studyOne.GET(req("/x"), ctx({ studyId: study.id }, SEED.labs.harrow.slug))).status).toBe(404);
     const list = (await (await studies.GET(req(`/x?q=Private ${tag}`), ctx({}, SEED.labs.harrow.slug))).json()) as { total: number };
     expect(list.total).toBe(0);
     as(SEED.users.chemist);
-    expect((await studyOne.GET(req("/x"), ctx({ study: "not-a-uuid" }))).status).toBe(404);
+    expect((await studyOne.GET(req("/x"), ctx({ studyId: "not-a-uuid" }))).status).toBe(404);
   });
 });

@@ -40,7 +40,7 @@ export function planSummary(p: Plan): PlanSummary {
  * @throws AppError not_found for another lab's plan, or none.
  */
 export async function findPlan(opts: { labId: string; planId: string; lock?: boolean }, t?: Transaction): Promise<Plan> {
-  const where = { id: pathId(opts.planId, "plan", "plan"), labId: opts.labId };
+  const where = { id: pathId(opts.planId, "planId", "plan"), labId: opts.labId };
   if (opts.lock && t) {
     // Lock the plan row alone (FOR UPDATE cannot apply to the outer-joined author and study).
     const locked = await Plan.findOne({ where, attributes: ["id"], transaction: t, lock: t.LOCK.UPDATE });
@@ -51,7 +51,7 @@ export async function findPlan(opts: { labId: string; planId: string; lock?: boo
   return plan;
 }
 
-const notFound = () => new AppError("not_found", "No such plan in this lab.", [{ path: "plan", message: "no plan has this id" }]);
+const notFound = () => new AppError("not_found", "No such plan in this lab.", [{ path: "planId", message: "no plan has this id" }]);
 
 /** What the audit log records of each change of a plan: its content hash and version, and the document. */
 export function planAudit(p: Plan, withDocument = true): Record<string, unknown> {

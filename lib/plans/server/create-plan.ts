@@ -27,7 +27,7 @@ export async function createPlan(
   const body = parseOrThrow(planCreateSchema, opts.input, "The plan is not valid.");
   return inTransaction(t, async (tx) => {
     const study = await findStudy({ labId: opts.labId, studyId: opts.studyId }, tx);
-    if (study.archivedAt) throw new AppError("conflict", "The study is archived; restore it before adding plans.", [{ path: "study", message: "archived" }]);
+    if (study.archivedAt) throw new AppError("conflict", "The study is archived; restore it before adding plans.", [{ path: "studyId", message: "archived" }]);
     const { settings } = await getLabSettings({ labId: opts.labId }, tx);
     const stored = await storedDocument(body.document, settings, randomSeed);
     const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: stored.document }, tx);

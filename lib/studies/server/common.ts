@@ -42,12 +42,12 @@ export const studyAuthor = { model: User, as: "author", attributes: ["id", "name
  */
 export async function findStudy(opts: { labId: string; studyId: string; lock?: boolean }, t?: Transaction): Promise<Study> {
   const study = await Study.findOne({
-    where: { id: pathId(opts.studyId, "study", "study"), labId: opts.labId },
+    where: { id: pathId(opts.studyId, "studyId", "study"), labId: opts.labId },
     include: opts.lock ? [] : [studyAuthor],
     transaction: t,
     lock: opts.lock && t ? t.LOCK.UPDATE : undefined,
   });
-  if (!study) throw new AppError("not_found", "No such study in this lab.", [{ path: "study", message: "no study has this id" }]);
+  if (!study) throw new AppError("not_found", "No such study in this lab.", [{ path: "studyId", message: "no study has this id" }]);
   return study;
 }
 

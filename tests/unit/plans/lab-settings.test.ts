@@ -21,7 +21,7 @@ describe("lab settings", () => {
     expect(s.vessels.types).toEqual(DEFAULT_VESSELS);
     expect(s.vessels.types.map((v) => v.id)).toContain(s.vessels.defaultId);
     expect(s.blocks.types.map((b) => b.id)).toContain(s.blocks.defaultId);
-    // REFERENCE.md §5: block formats of 24, 48 and 96 positions; §2: aluminium blocks 150 °C routine.
+    // Common practice (stated in lib/lab-settings/schemas.ts): block formats of 24, 48 and 96 positions; aluminium blocks 150 °C routine.
     expect(s.blocks.types.map((b) => b.positions).sort((a, b) => a - b)).toEqual([24, 24, 48, 96]);
     expect(Math.max(...s.blocks.types.filter((b) => b.mode === "heating").map((b) => b.maxC))).toBe(150);
   });
