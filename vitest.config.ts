@@ -23,6 +23,17 @@ export default defineConfig({
           hookTimeout: 30_000,
         },
       },
+      {
+        extends: true,
+        test: {
+          name: "bootstrap",
+          // Runs `npm start` in a copy of the checkout (scripts/test.mjs runs it last).
+          include: ["tests/bootstrap/**/*.test.ts"],
+          environment: "node",
+          testTimeout: 300_000,
+          hookTimeout: 180_000,
+        },
+      },
     ],
   },
 });

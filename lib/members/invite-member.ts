@@ -2,10 +2,9 @@ import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { inviteMemberSchema } from "@/lib/schemas/membership";
-import { ROLE_LABELS } from "@/lib/auth/roles";
 import { transaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
-import { sendMail } from "@/lib/server/mail";
+import { enqueueMail } from "@/lib/jobs/mail/enqueue-mail";
 import { Invitation, Lab, Membership, User } from "@/lib/server/models";
 
 export const INVITATION_DAYS = 7;
@@ -16,13 +15,15 @@ export function hashToken(token: string): string {
 
 /**
  * Invites someone to a lab by e-mail with a role: stores the hash of a random token,
- * audits it, and mails a link where the invitee sets a password. Refuses (conflict)
- * an address that is already a member.
+ * audits it, and queues (in the same transaction) the e-mail with a link where the invitee
+ * sets a password; the job worker sends it. Refuses (conflict) an address that is already
+ * a member.
  */
 export async function inviteMember(opts: { labId: string; actorUserId: string; appUrl: string; input: unknown }) {
   const { email, role } = parseOrThrow(inviteMemberSchema, opts.input);
   const token = randomBytes(32).toString("base64url");
-  const { invitation, lab } = await transaction(async (t) => {
+  const link = `${opts.appUrl.replace(/\/$/, "")}/invite/${token}`;
+  const { invitation } = await transaction(async (t) => {
     const lab = await Lab.findByPk(opts.labId, { transaction: t });
     if (!lab) throw new AppError("not_found", "No such lab.");
     const existing = await User.findOne({ where: { email }, transaction: t });
@@ -34,20 +35,8 @@ export async function inviteMember(opts: { labId: string; actorUserId: string; a
       { transaction: t },
     );
     await audit({ labId: opts.labId, actorUserId: opts.actorUserId, action: "invitation.created", entityType: "invitation", entityId: invitation.id, after: { email, role } }, t);
-    return { invitation, lab };
-  });
-  const link = `${opts.appUrl.replace(/\/$/, "")}/invite/${token}`;
-  await sendMail({
-    to: email,
-    subject: `You are invited to ${lab.name} on Tareline`,
-    text: [
-      `You have been invited to join ${lab.name} on Tareline as ${ROLE_LABELS[role].toLowerCase()}.`,
-      "",
-      `Open this link to set your password and join (valid for ${INVITATION_DAYS} days):`,
-      link,
-      "",
-      "If you did not expect this, ignore this message.",
-    ].join("\n"),
+    await enqueueMail({ to: email, render: "invitation", input: { labName: lab.name, role, link, validDays: INVITATION_DAYS } }, t);
+    return { invitation };
   });
   return { id: invitation.id, email, role, expiresAt: invitation.expiresAt.toISOString() };
 }

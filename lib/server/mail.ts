@@ -1,5 +1,6 @@
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
+import type { MailMessage } from "@/lib/jobs/mail/message";
 import { serverEnv } from "./env";
 
 const globalForMail = globalThis as unknown as { tarelineMail?: Transporter };
@@ -13,18 +14,26 @@ function transporter(): Transporter {
       secure: url.protocol === "smtps:",
       ignoreTLS: url.protocol === "smtp:" && ["127.0.0.1", "localhost", "::1"].includes(url.hostname),
       auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
+      connectionTimeout: 30_000,
+      greetingTimeout: 30_000,
+      socketTimeout: 60_000,
     });
   }
   return globalForMail.tarelineMail;
 }
 
-export interface MailMessage {
-  to: string;
-  subject: string;
-  text: string;
-}
-
-/** Sends one plain-text message through SMTP_URL (the local fake mail service in development). */
-export async function sendMail(message: MailMessage): Promise<void> {
-  await transporter().sendMail({ from: serverEnv().MAIL_FROM, ...message });
+/**
+ * Hands one message to SMTP_URL (the local fake mail service in development); throws when
+ * the server is unreachable or refuses it. Only the mail job (lib/jobs/mail/send-mail-job.ts)
+ * calls this: everything else queues mail with enqueueMail, so that it is retried.
+ */
+export async function deliverMail(message: MailMessage): Promise<void> {
+  await transporter().sendMail({
+    from: serverEnv().MAIL_FROM,
+    to: message.to,
+    subject: message.subject,
+    text: message.text,
+    html: message.html,
+    attachments: message.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, "base64") })),
+  });
 }

@@ -3,9 +3,9 @@ import { SMTPServer } from "smtp-server";
 import { DEMO, signIn } from "./support/auth";
 
 /**
- * A lab admin invites someone; the e-mail is captured by an in-test SMTP server on the
- * port the app was started with (E2E_SMTP_PORT, set by scripts/test.mjs); its link lets the
- * invitee set a password and sign in.
+ * A lab admin invites someone; the app queues the e-mail, the job worker delivers it to an
+ * in-test SMTP server on the port the worker was started with (E2E_SMTP_PORT, set by
+ * scripts/test.mjs); its link lets the invitee set a password and sign in.
  */
 const received: string[] = [];
 let server: SMTPServer;
