@@ -31,6 +31,7 @@ test("a chemist creates a study and sees it in the list and on its page", async 
   await page.getByTestId("create-study").click();
   // A target needs its bounds: the error shows on the field, and nothing is created.
   await expect(page.getByTestId("error-responses.1.low")).toBeVisible();
+  await page.screenshot({ path: testInfo.outputPath("study-form.png"), fullPage: true });
   await second.getByLabel("Lowest").fill("0");
   await second.getByLabel("Highest").fill("2");
   await page.getByTestId("create-study").click();
@@ -96,4 +97,5 @@ test("settings: lab admins edit equipment, safety officers the thresholds, chemi
   await expect(page.getByTestId("settings-vessels")).toContainText("read only");
   await expect(page.getByRole("button", { name: /^Save/ })).toHaveCount(0);
   await expect(page.getByLabel("Sign-off needed from")).toBeDisabled();
+  await page.screenshot({ path: testInfo.outputPath("settings-chemist.png"), fullPage: false });
 });
