@@ -1,14 +1,14 @@
 /**
  * Container CSV import, the pure part: parse the file (papaparse), apply the column
- * mapping, and validate every row, naming the row and column of each problem. Nothing is
- * written here; inventory/server/import-containers.ts adds the database checks and writes
+ * mapping, and validate every row with the shared schema (inventory/schemas.ts
+ * `csvRowSchema`: the same fields and limits as the API's chemicals, locations and
+ * containers), naming the row and column of each problem. Nothing is written here; inventory/server/import-containers.ts adds the database checks and writes
  * the whole file in one transaction when the stockkeeper confirms.
  */
 import Papa from "papaparse";
-import { casProblem } from "./cas";
-import { parseDecimal, cmp, rational } from "./decimal";
 import { toBase, unitInfo, type Dimension } from "./units";
-import { CSV_FIELDS, REQUIRED_FIELDS, guessMapping, type CsvField } from "./csv-fields";
+import { CSV_FIELDS, FIELD_LABELS, REQUIRED_FIELDS, guessMapping, type CsvField } from "./csv-fields";
+import { csvRowSchema, type CsvRowValues } from "./schemas";
 
 export interface ImportIssue {
   /** Data row number, 1 = the first row under the header. */
@@ -54,12 +54,36 @@ export interface ParsedImport {
 /** The largest file accepted, in rows (the whole file goes in one transaction). */
 export const MAX_IMPORT_ROWS = 5000;
 
-const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
+/** What people write for the two concentration units, mapped to Tareline's. */
+const CONCENTRATION_UNITS: Record<string, "M" | "mg/mL"> = { m: "M", "mol/l": "M", "mg/ml": "mg/mL", "g/l": "mg/mL" };
 
-function validDate(s: string): boolean {
-  if (!ISO_DATE.test(s)) return false;
-  const d = new Date(`${s}T00:00:00Z`);
-  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s;
+const clip = (v: string) => (v.length > 40 ? `${v.slice(0, 40)}…` : v);
+
+/** A validated row in the shape the import writes (amount in exact base units). */
+function importRow(row: number, v: CsvRowValues): ImportRow {
+  const { base, dimension } = toBase(v.amount, v.unit);
+  return {
+    row,
+    name: v.name,
+    cas: v.cas,
+    barcode: v.barcode,
+    amountBase: base,
+    dimension,
+    displayUnit: unitInfo(v.unit)!.label,
+    location: v.location,
+    lot: v.lot,
+    purityPercent: v.purity,
+    concentration: v.concentration,
+    concentrationUnit: v.concentration ? v.concentration_unit : null,
+    solvent: v.solvent,
+    receivedOn: v.received,
+    openedOn: v.opened,
+    expiresOn: v.expiry,
+    status: v.status,
+    formula: v.formula,
+    molarMass: v.molar_mass,
+    density: v.density,
+  };
 }
 
 /**
@@ -96,120 +120,39 @@ export function parseContainerCsv(text: string, mappingIn?: Partial<Record<CsvFi
   if (issues.length) return { headers, mapping, rows, issues, rowCount: data.length };
 
   const seenBarcodes = new Map<string, number>();
+  const position = (column: string) => headers.indexOf(column) + 1 || headers.length + 1;
   data.forEach((record, i) => {
     const row = i + 1;
     const rowIssues: ImportIssue[] = [];
-    const get = (f: CsvField): string => {
+    const column = (f: CsvField) => mapping[f] ?? f;
+    const cells: Partial<Record<CsvField, string>> = {};
+    for (const f of CSV_FIELDS) {
       const h = mapping[f];
-      return h ? (record[h] ?? "").trim() : "";
-    };
-    const bad = (f: CsvField, message: string) => rowIssues.push({ row, column: mapping[f] ?? f, field: f, message });
-    const optionalDecimal = (f: CsvField, check: (v: string) => string | null): string | null => {
-      const v = get(f);
-      if (!v) return null;
-      try {
-        parseDecimal(v);
-      } catch {
-        bad(f, `"${v}" is not a number`);
-        return null;
-      }
-      const p = check(v);
-      if (p) bad(f, p);
-      return p ? null : v;
-    };
-    const optionalDate = (f: CsvField): string | null => {
-      const v = get(f);
-      if (!v) return null;
-      if (!validDate(v)) {
-        bad(f, `"${v}" is not a date written YYYY-MM-DD`);
-        return null;
-      }
-      return v;
-    };
-    const positive = (v: string) => (cmp(parseDecimal(v), rational(0n)) > 0 ? null : "must be greater than zero");
-
-    const cas = get("cas");
-    if (!cas) bad("cas", "CAS number is missing");
-    else {
-      const p = casProblem(cas);
-      if (p) bad("cas", `CAS number ${cas}: ${p}`);
+      const v = h ? (record[h] ?? "").trim() : "";
+      if (v !== "") cells[f] = v;
     }
-    const barcode = get("barcode");
-    if (!barcode) bad("barcode", "barcode is missing");
-    else if (barcode.length > 64) bad("barcode", "barcode is longer than 64 characters");
-    else if (seenBarcodes.has(barcode.toLowerCase())) bad("barcode", `barcode ${barcode} is also on row ${seenBarcodes.get(barcode.toLowerCase())}`);
-    else seenBarcodes.set(barcode.toLowerCase(), row);
-
-    const unit = get("unit");
-    const info = unit ? unitInfo(unit) : null;
-    if (!unit) bad("unit", "unit is missing");
-    else if (!info) bad("unit", `unknown unit "${unit}" (use µg, mg, g, kg, µL, mL or L)`);
-    const amountText = get("amount");
-    let amountBase: bigint | null = null;
-    if (!amountText) bad("amount", "amount is missing");
-    else {
-      let ok = true;
-      try {
-        parseDecimal(amountText);
-      } catch {
-        ok = false;
-        bad("amount", `"${amountText}" is not a number`);
+    for (const f of REQUIRED_FIELDS) if (cells[f] === undefined) rowIssues.push({ row, column: column(f), field: f, message: `${FIELD_LABELS[f].toLowerCase()} is missing` });
+    const input: Record<string, unknown> = { ...cells };
+    if (cells.status !== undefined) input.status = cells.status.toLowerCase();
+    if (cells.concentration_unit !== undefined) input.concentration_unit = CONCENTRATION_UNITS[cells.concentration_unit.replace(/\s/g, "").toLowerCase()] ?? cells.concentration_unit;
+    const parsed = csvRowSchema.safeParse(input);
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const f = issue.path[0] as CsvField | undefined;
+        if (f === undefined || (REQUIRED_FIELDS.includes(f) && cells[f] === undefined)) continue; // already "missing"
+        const cell = cells[f];
+        rowIssues.push({ row, column: column(f), field: f, message: cell === undefined || issue.message.includes(cell) ? issue.message : `"${clip(cell)}": ${issue.message}` });
       }
-      if (ok && cmp(parseDecimal(amountText), rational(0n)) < 0) bad("amount", `amount ${amountText} is negative`);
-      else if (ok && info) amountBase = toBase(amountText, unit).base;
     }
-    const purity = optionalDecimal("purity", (v) => {
-      const x = parseDecimal(v);
-      return cmp(x, rational(0n)) > 0 && cmp(x, rational(100n)) <= 0 ? null : "purity must be above 0 and at most 100 %";
-    });
-    const concentration = optionalDecimal("concentration", positive);
-    const cu = get("concentration_unit");
-    let concentrationUnit: "M" | "mg/mL" | null = null;
-    if (cu) {
-      const norm = cu.replace(/\s/g, "").toLowerCase();
-      if (norm === "m" || norm === "mol/l") concentrationUnit = "M";
-      else if (norm === "mg/ml" || norm === "g/l") concentrationUnit = "mg/mL";
-      else bad("concentration_unit", `unknown concentration unit "${cu}" (use M or mg/mL)`);
+    const barcode = cells.barcode;
+    if (barcode !== undefined) {
+      const seen = seenBarcodes.get(barcode.toLowerCase());
+      if (seen !== undefined) rowIssues.push({ row, column: column("barcode"), field: "barcode", message: `barcode ${barcode} is also on row ${seen}` });
+      else seenBarcodes.set(barcode.toLowerCase(), row);
     }
-    if (concentration && !cu) bad("concentration_unit", "give the concentration's unit (M or mg/mL)");
-    if (concentration && info && info.dimension !== "volume") bad("unit", "a solution's amount must be a volume");
-    const received = optionalDate("received");
-    const opened = optionalDate("opened");
-    const expiry = optionalDate("expiry");
-    const statusText = get("status").toLowerCase();
-    let status: "available" | "quarantined" = "available";
-    if (statusText === "quarantined") status = "quarantined";
-    else if (statusText && statusText !== "available") bad("status", `status must be available or quarantined, not "${get("status")}"`);
-    const molarMass = optionalDecimal("molar_mass", positive);
-    const density = optionalDecimal("density", positive);
-    const name = get("name");
-    if (name.length > 200) bad("name", "name is longer than 200 characters");
-
+    rowIssues.sort((x, y) => position(x.column) - position(y.column));
     issues.push(...rowIssues);
-    if (rowIssues.length === 0 && info && amountBase !== null) {
-      rows.push({
-        row,
-        name: name || null,
-        cas,
-        barcode,
-        amountBase,
-        dimension: info.dimension,
-        displayUnit: info.label,
-        location: get("location") || null,
-        lot: get("lot") || null,
-        purityPercent: purity,
-        concentration,
-        concentrationUnit: concentration ? concentrationUnit : null,
-        solvent: get("solvent") || null,
-        receivedOn: received,
-        openedOn: opened,
-        expiresOn: expiry,
-        status,
-        formula: get("formula") || null,
-        molarMass,
-        density,
-      });
-    }
+    if (rowIssues.length === 0 && parsed.success) rows.push(importRow(row, parsed.data));
   });
   return { headers, mapping, rows, issues, rowCount: data.length };
 }

@@ -27,11 +27,15 @@ export function rational(n: bigint, d: bigint = 1n): Rational {
 }
 
 const DECIMAL = /^([+-]?)(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?$/;
+/** The largest decimal exponent and text length parseDecimal accepts. */
+const MAX_EXPONENT = 1000;
+const MAX_DECIMAL_TEXT = 1000;
 
 /**
  * Parses a decimal number written as a string ("12.5", "-0.003", "1e-7") or a finite JS
  * number (through its shortest round-trip decimal form) into an exact rational.
- * @throws RangeError for anything that is not a finite decimal number.
+ * @throws RangeError for anything that is not a finite decimal number, or one whose
+ *   exponent or text is beyond MAX_EXPONENT / MAX_DECIMAL_TEXT.
  */
 export function parseDecimal(value: string | number): Rational {
   if (typeof value === "number" && !Number.isFinite(value)) throw new RangeError(`not a finite number: ${value}`);
@@ -42,6 +46,9 @@ export function parseDecimal(value: string | number): Rational {
   const intPart = m[2] ?? "";
   const frac = m[3] ?? "";
   const exp = Number(m[4] ?? "0");
+  // A last guard against work without bound ("1e10000000" would build a ten-million-digit
+  // BigInt); the schemas (inventory/schemas.ts) refuse such text long before it gets here.
+  if (Math.abs(exp) > MAX_EXPONENT || text.length > MAX_DECIMAL_TEXT) throw new RangeError(`decimal out of range: "${text.slice(0, 40)}"`);
   let n = BigInt((intPart + frac) || "0") * sign;
   let d = 10n ** BigInt(frac.length);
   if (exp > 0) n *= 10n ** BigInt(exp);

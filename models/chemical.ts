@@ -24,6 +24,8 @@ export class Chemical extends Model<InferAttributes<Chemical>, InferCreationAttr
   declare storageNotes: string | null;
   declare lowStockBase: string | null;
   declare lowStockDimension: "mass" | "volume" | null;
+  /** Raised by every save (Sequelize optimistic locking); edits send the version they read. */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -46,10 +48,11 @@ export class Chemical extends Model<InferAttributes<Chemical>, InferCreationAttr
         storageNotes: { type: DataTypes.TEXT, allowNull: true },
         lowStockBase: { type: DataTypes.BIGINT, allowNull: true },
         lowStockDimension: { type: DataTypes.STRING(6), allowNull: true },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "chemicals", underscored: true },
+      { sequelize, tableName: "chemicals", underscored: true, version: true },
     );
   }
 }

@@ -29,6 +29,8 @@ export class Container extends Model<InferAttributes<Container>, InferCreationAt
   declare expiresOn: string | null;
   declare peroxideTestedOn: string | null;
   declare status: CreationOptional<ContainerStatus>;
+  /** Raised by every save (Sequelize optimistic locking); edits send the version they read. */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare chemical?: NonAttribute<Chemical>;
@@ -56,10 +58,11 @@ export class Container extends Model<InferAttributes<Container>, InferCreationAt
         expiresOn: { type: DataTypes.DATEONLY, allowNull: true },
         peroxideTestedOn: { type: DataTypes.DATEONLY, allowNull: true },
         status: { type: DataTypes.ENUM("available", "quarantined", "empty", "disposed"), allowNull: false, defaultValue: "available" },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "containers", underscored: true },
+      { sequelize, tableName: "containers", underscored: true, version: true },
     );
   }
 }

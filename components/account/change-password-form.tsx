@@ -3,7 +3,7 @@
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { changePasswordSchema, type ChangePasswordInput } from "@/lib/schemas/account";
+import { changePasswordSchema, type ChangePasswordInput } from "@/lib/members/schemas";
 import { postJson } from "@/lib/client/fetch-json";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";

@@ -4,7 +4,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { acceptInvitationSchema, type AcceptInvitationInput } from "@/lib/schemas/account";
+import { acceptInvitationSchema, type AcceptInvitationInput } from "@/lib/members/schemas";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
 import { Banner } from "@/components/ui/banner";

@@ -5,7 +5,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
-import { signInSchema, type SignInInput } from "@/lib/schemas/account";
+import { signInSchema, type SignInInput } from "@/lib/members/schemas";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
 import { Banner } from "@/components/ui/banner";

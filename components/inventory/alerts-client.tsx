@@ -5,7 +5,7 @@ import { useState } from "react";
 import { useFieldArray, useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { availabilityInputSchema, type AvailabilityInput, type ContainerRow } from "@/lib/schemas/inventory";
+import { availabilityInputSchema, type AvailabilityInput, type ContainerRow } from "@/inventory/schemas";
 import { useStockAlerts, type StockAlerts } from "@/lib/hooks/use-inventory";
 import { postJson } from "@/lib/client/fetch-json";
 import { Banner } from "@/components/ui/banner";

@@ -1,4 +1,4 @@
-import type { AmountView, ContainerRow } from "@/lib/schemas/inventory";
+import type { AmountView, ContainerRow } from "@/inventory/schemas";
 
 /** An amount with its unit, in tabular figures, never wrapped between number and unit. */
 export function Amount({ value, testId }: { value: AmountView | null | undefined; testId?: string }) {

@@ -4,7 +4,7 @@ import { useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { chemicalFormSchema, chemicalFromForm, PEROXIDE_CLASSES, PHYSICAL_STATES, type ChemicalFormInput, type ChemicalRow } from "@/lib/schemas/inventory";
+import { chemicalFormSchema, chemicalFromForm, PEROXIDE_CLASSES, PHYSICAL_STATES, type ChemicalFormInput, type ChemicalRow } from "@/inventory/schemas";
 import { useChemicals } from "@/lib/hooks/use-inventory";
 import { postJson } from "@/lib/client/fetch-json";
 import { STOCK_UNITS } from "@/inventory/units";

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { adjustAmountSchema, type AdjustAmountInput, type LedgerRow, type ReservationRow } from "@/lib/schemas/inventory";
+import { adjustAmountSchema, type AdjustAmountInput, type LedgerRow, type ReservationRow } from "@/inventory/schemas";
 import { useContainer, type ContainerDetail, type LocationRow } from "@/lib/hooks/use-inventory";
 import { postJson } from "@/lib/client/fetch-json";
 import { STOCK_UNITS } from "@/inventory/units";
@@ -53,7 +53,7 @@ export function ContainerDetailClient({ labSlug, canManage, initial, locations, 
 
   async function patch(body: Record<string, unknown>, done: string) {
     setMessage(null);
-    const res = await postJson(`/api/labs/${labSlug}/containers/${c.id}`, body, "PATCH");
+    const res = await postJson(`/api/labs/${labSlug}/containers/${c.id}`, { ...body, version: c.version }, "PATCH");
     setMessage(res.ok ? { tone: "ok", text: done } : { tone: "blocks", text: res.error.message });
     await mutate();
   }

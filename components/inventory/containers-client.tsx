@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
-import type { ContainerRow, ContainerQuery } from "@/lib/schemas/inventory";
+import type { ContainerRow, ContainerQuery } from "@/inventory/schemas";
 import { useContainers, useLocations, type ContainerPage, type LocationRow } from "@/lib/hooks/use-inventory";
 import { DataTable, tableColumns } from "@/components/ui/data-table";
 import { Banner } from "@/components/ui/banner";

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { locationInputSchema, type LocationInput } from "@/lib/schemas/inventory";
+import { locationInputSchema, type LocationInput } from "@/inventory/schemas";
 import { postJson } from "@/lib/client/fetch-json";
 import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { containerInputSchema, type ContainerInput } from "@/lib/schemas/inventory";
+import { containerInputSchema, type ContainerInput } from "@/inventory/schemas";
 import { STOCK_UNITS } from "@/inventory/units";
 import { postJson } from "@/lib/client/fetch-json";
 import { Button } from "@/components/ui/button";

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { ReservationRow } from "@/lib/schemas/inventory";
+import type { ReservationRow } from "@/inventory/schemas";
 import { postJson } from "@/lib/client/fetch-json";
 import { STOCK_UNITS } from "@/inventory/units";
 import { Button } from "@/components/ui/button";

@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useState } from "react";
-import type { ReservationRow } from "@/lib/schemas/inventory";
+import type { ReservationRow } from "@/inventory/schemas";
 import { useReservations } from "@/lib/hooks/use-inventory";
 import { DataTable, tableColumns } from "@/components/ui/data-table";
 import { Banner } from "@/components/ui/banner";

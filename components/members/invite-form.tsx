@@ -3,7 +3,7 @@
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { inviteMemberSchema, type InviteMemberInput } from "@/lib/schemas/membership";
+import { inviteMemberSchema, type InviteMemberInput } from "@/lib/members/schemas";
 import { ROLES, ROLE_LABELS } from "@/lib/auth/roles";
 import { postJson } from "@/lib/client/fetch-json";
 import { Button } from "@/components/ui/button";

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { ROLES, ROLE_LABELS, type Role } from "@/lib/auth/roles";
-import type { MembershipRow } from "@/lib/schemas/membership";
+import type { MembershipRow } from "@/lib/members/schemas";
 import { useMembers } from "@/lib/hooks/use-members";
 import { postJson } from "@/lib/client/fetch-json";
 import { DataTable, tableColumns } from "@/components/ui/data-table";

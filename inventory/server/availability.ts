@@ -1,16 +1,16 @@
 import "server-only";
-import { Op } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import { parseOrThrow } from "@/lib/errors/app-error";
-import { availabilityInputSchema } from "@/lib/schemas/inventory";
+import { availabilityInputSchema } from "@/inventory/schemas";
 import { Chemical, Container } from "@/lib/server/models";
 import { proposeContainers, type ChemicalFacts, type ContainerFacts } from "../availability";
 import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
 
 /** Loads what proposeContainers needs for some chemicals of one lab (tenant in every query). */
-export async function loadStockFacts(labId: string, chemicalIds: string[]): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[] }> {
-  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: chemicalIds } } });
-  const boxes = await Container.findAll({ where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } } });
-  const held = await heldByContainer(boxes.map((b) => b.id));
+export async function loadStockFacts(labId: string, chemicalIds: string[], t?: Transaction): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[] }> {
+  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: chemicalIds } }, transaction: t });
+  const boxes = await Container.findAll({ where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } }, transaction: t });
+  const held = await heldByContainer(boxes.map((b) => b.id), t);
   return {
     chemicals: chems.map((c) => ({
       id: c.id,
@@ -43,18 +43,19 @@ export async function loadStockFacts(labId: string, chemicalIds: string[]): Prom
 /**
  * Availability for a run sheet's requirements in one lab: proposed containers per
  * requirement, shortfalls per chemical and warnings (inventory/availability.ts). Reads
- * only; reserve the proposal with reserveStock. Amounts in the result are base-unit
- * strings plus display text.
+ * only (inside the caller's transaction `t` when given, so a plan's release sees what it
+ * is about to reserve); reserve the proposal with reserveStock. Amounts in the result are
+ * base-unit strings plus display text.
  * @throws AppError invalid_input.
  */
-export async function checkAvailability(opts: { labId: string; input: unknown; today?: string }) {
+export async function checkAvailability(opts: { labId: string; input: unknown; today?: string }, t?: Transaction) {
   const { requirements } = parseOrThrow(availabilityInputSchema, opts.input);
-  const facts = await loadStockFacts(opts.labId, [...new Set(requirements.map((r) => r.chemicalId))]);
+  const facts = await loadStockFacts(opts.labId, [...new Set(requirements.map((r) => r.chemicalId))], t);
   const proposal = proposeContainers({
     requirements: requirements.map((r) => ({ chemicalId: r.chemicalId, amount: r.amount, unit: r.unit, label: r.label ?? undefined })),
     ...facts,
     today: opts.today ?? todayIso(),
-    peroxideIntervals: await peroxideIntervalsFor(opts.labId),
+    peroxideIntervals: await peroxideIntervalsFor(opts.labId, t),
   });
   const names = new Map(facts.chemicals.map((c) => [c.id, c.name]));
   return {

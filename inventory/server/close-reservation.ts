@@ -1,8 +1,8 @@
 import "server-only";
 import { Op, type Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { consumeInputSchema, releaseInputSchema, planRefSchema } from "@/lib/schemas/inventory";
-import { transaction } from "@/lib/server/db";
+import { consumeInputSchema, releaseInputSchema, planRefSchema } from "@/inventory/schemas";
+import { inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Container, Reservation } from "@/lib/server/models";
 import { formatAmount, toBase, unitInfo } from "../units";
@@ -27,9 +27,9 @@ async function lockReservation(labId: string, reservationId: string, t: Transact
  * @throws AppError not_found, conflict (not held, or more used than the container has
  *   free for this reservation), invalid_input (unit of the wrong dimension).
  */
-export async function consumeReservation(opts: { labId: string; actorUserId: string; reservationId: string; input: unknown }) {
+export async function consumeReservation(opts: { labId: string; actorUserId: string; reservationId: string; input: unknown }, t?: Transaction) {
   const input = parseOrThrow(consumeInputSchema, opts.input);
-  return transaction(async (t) => {
+  return inTransaction(t, async (t) => {
     const { r, c } = await lockReservation(opts.labId, opts.reservationId, t);
     if (unitInfo(input.unit)?.dimension !== c.dimension) throw AppError.field("unit", `${c.barcode} is measured by ${c.dimension}`);
     const used = toBase(input.amount, input.unit).base;
@@ -71,9 +71,9 @@ async function releaseLocked(opts: { labId: string; actorUserId: string; reason:
  * again), with the reason in the ledger and the audit log.
  * @throws AppError not_found, conflict (not held), invalid_input (no reason).
  */
-export async function releaseReservation(opts: { labId: string; actorUserId: string; reservationId: string; input: unknown }) {
+export async function releaseReservation(opts: { labId: string; actorUserId: string; reservationId: string; input: unknown }, t?: Transaction) {
   const { reason } = parseOrThrow(releaseInputSchema, opts.input);
-  return transaction(async (t) => {
+  return inTransaction(t, async (t) => {
     const { r, c } = await lockReservation(opts.labId, opts.reservationId, t);
     await releaseLocked({ labId: opts.labId, actorUserId: opts.actorUserId, reason }, r, c, t);
     return { id: r.id, status: r.status };
@@ -81,15 +81,18 @@ export async function releaseReservation(opts: { labId: string; actorUserId: str
 }
 
 /**
- * Releases every held reservation of a plan — what the plans feature calls when a plan
- * is cancelled, so a reservation never outlives its plan. Locks the containers in id
- * order, then the reservations. Returns how many were released (0 when none were held).
- * @throws AppError invalid_input for an empty plan reference.
+ * Releases every held reservation of a plan reference — what the plans feature calls in
+ * its own transaction `t` when a plan is cancelled or released again, so "cancel and
+ * release" (or "release the old holds and reserve anew") commits or rolls back as one and
+ * a reservation never outlives its plan. Locks the containers in id order, then the
+ * reservations (the order reserveStock uses). Returns how many were released (0 when none
+ * were held).
+ * @throws AppError invalid_input for an empty plan reference or reason.
  */
-export async function releaseReservationsForPlan(opts: { labId: string; actorUserId: string; planRef: string; reason?: string }): Promise<{ released: number }> {
-  const planRef = parseOrThrow(planRefSchema, opts.planRef);
-  const reason = opts.reason ?? `Plan ${planRef} cancelled`;
-  return transaction(async (t) => {
+export async function releaseReservationsForPlan(opts: { labId: string; actorUserId: string; planRef: string; reason?: string }, t?: Transaction): Promise<{ released: number }> {
+  const planRef = parseOrThrow(planRefSchema, opts.planRef, "The plan reference is not valid.");
+  const reason = parseOrThrow(releaseInputSchema, { reason: opts.reason ?? `Plan ${planRef} cancelled` }).reason;
+  return inTransaction(t, async (t) => {
     const open = await Reservation.findAll({ where: { labId: opts.labId, planRef, status: "held" }, transaction: t });
     if (open.length === 0) return { released: 0 };
     const containerIds = [...new Set(open.map((r) => r.containerId))].sort();

@@ -5,7 +5,7 @@ import { AppError } from "@/lib/errors/app-error";
 import { Lab, StockLedgerEntry } from "@/lib/server/models";
 import { labThresholdsSchema } from "@/lib/hazards/thresholds";
 import type { LedgerKind } from "@/models/stock-ledger-entry";
-import type { AmountView } from "@/lib/schemas/inventory";
+import type { AmountView } from "@/inventory/schemas";
 import type { PeroxideIntervals } from "../peroxide";
 import { formatAmount, type Dimension } from "../units";
 
@@ -63,8 +63,8 @@ export async function appendLedger(
 }
 
 /** The lab's peroxide test intervals (its thresholds, or the defaults). */
-export async function peroxideIntervalsFor(labId: string): Promise<PeroxideIntervals> {
-  const lab = await Lab.findByPk(labId);
+export async function peroxideIntervalsFor(labId: string, t?: Transaction): Promise<PeroxideIntervals> {
+  const lab = await Lab.findByPk(labId, { transaction: t });
   const settings = (lab?.settings ?? {}) as Record<string, unknown>;
   const parsed = labThresholdsSchema.safeParse(settings.thresholds ?? {});
   return (parsed.success ? parsed.data : labThresholdsSchema.parse({})).peroxideTestIntervalMonths;
@@ -74,4 +74,16 @@ export async function peroxideIntervalsFor(labId: string): Promise<PeroxideInter
 export function uniqueToConflict(e: unknown, path: string, message: string): never {
   if (e instanceof UniqueConstraintError) throw new AppError("conflict", message, [{ path, message }]);
   throw e;
+}
+
+/**
+ * Refuses an edit made from a stale copy: `sent` is the version the client read, `current`
+ * the record's version now (read under its row lock). Conflict naming `version`.
+ */
+export function assertVersion(what: string, current: number, sent: number): void {
+  if (current !== sent) {
+    throw new AppError("conflict", `Someone changed this ${what} since you read it (it is at version ${current}, you sent ${sent}). Reload it and make your change again.`, [
+      { path: "version", message: `stale: the ${what} is at version ${current}` },
+    ]);
+  }
 }

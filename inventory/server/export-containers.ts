@@ -1,4 +1,5 @@
 import "server-only";
+import type { Transaction } from "sequelize";
 import { Chemical, Container, Location } from "@/lib/server/models";
 import { CSV_FIELDS } from "../csv-fields";
 import { toCsv } from "../csv-export";
@@ -10,7 +11,7 @@ import { fromBase } from "../units";
  * and imported elsewhere), amounts exact in each container's display unit, and every
  * cell that would start a spreadsheet formula neutralised (inventory/csv-export.ts).
  */
-export async function exportContainersCsv(opts: { labId: string }): Promise<string> {
+export async function exportContainersCsv(opts: { labId: string }, t?: Transaction): Promise<string> {
   const rows = await Container.findAll({
     where: { labId: opts.labId },
     include: [
@@ -18,6 +19,7 @@ export async function exportContainersCsv(opts: { labId: string }): Promise<stri
       { model: Location, as: "location", required: false },
     ],
     order: [["barcode", "ASC"]],
+    transaction: t,
   });
   const data = rows.map((c) => {
     const chem = c.chemical!;

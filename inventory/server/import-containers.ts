@@ -1,8 +1,8 @@
 import "server-only";
-import { Op } from "sequelize";
+import { Op, col as column, fn, where, type Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { importRequestSchema } from "@/lib/schemas/inventory";
-import { transaction } from "@/lib/server/db";
+import { importRequestSchema } from "@/inventory/schemas";
+import { inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Chemical, Container, Location } from "@/lib/server/models";
 import { CSV_FIELDS, FIELD_LABELS, type CsvField } from "../csv-fields";
@@ -22,17 +22,17 @@ export interface ImportPreview {
 }
 
 /** The file checked against the lab's records: barcodes already used, chemicals that would be new (and then need a name). */
-async function check(labId: string, input: unknown): Promise<{ preview: ImportPreview; rows: ImportRow[] }> {
+async function check(labId: string, input: unknown, t?: Transaction): Promise<{ preview: ImportPreview; rows: ImportRow[] }> {
   const req = parseOrThrow(importRequestSchema, input);
   const parsed = parseContainerCsv(req.csv, req.mapping as Partial<Record<CsvField, string>> | undefined);
   const issues = [...parsed.issues];
   const cas = [...new Set(parsed.rows.map((r) => r.cas))];
-  const chems = cas.length ? await Chemical.findAll({ where: { labId, cas: { [Op.in]: cas } }, attributes: ["id", "cas", "name"] }) : [];
+  const chems = cas.length ? await Chemical.findAll({ where: { labId, cas: { [Op.in]: cas } }, attributes: ["id", "cas", "name"], transaction: t }) : [];
   const chemByCas = new Map(chems.map((c) => [c.cas!, c]));
   const barcodes = parsed.rows.map((r) => r.barcode.toLowerCase());
-  const taken = barcodes.length ? await Container.findAll({ where: { labId, barcode: { [Op.iLike]: { [Op.any]: barcodes } } }, attributes: ["barcode"] }) : [];
+  const taken = barcodes.length ? await Container.findAll({ where: { labId, [Op.and]: [where(fn("lower", column("barcode")), { [Op.in]: barcodes })] }, attributes: ["barcode"], transaction: t }) : [];
   const takenSet = new Set(taken.map((c) => c.barcode.toLowerCase()));
-  const locs = await Location.findAll({ where: { labId }, attributes: ["name"] });
+  const locs = await Location.findAll({ where: { labId }, attributes: ["name"], transaction: t });
   const locSet = new Set(locs.map((l) => l.name.toLowerCase()));
   const col = (f: CsvField) => parsed.mapping[f] ?? f;
   const ok: ImportRow[] = [];
@@ -78,11 +78,12 @@ async function check(labId: string, input: unknown): Promise<{ preview: ImportPr
 
 /**
  * The preview of a container CSV: the column mapping used (guessed or chosen), every
- * problem by row and column, and the rows that would be imported. Writes nothing.
+ * problem by row and column, and the rows that would be imported. It runs exactly the
+ * checks the import runs (the same function), so a file it accepts imports. Writes nothing.
  * @throws AppError invalid_input when the request itself is malformed (no file).
  */
-export async function previewImport(opts: { labId: string; input: unknown }): Promise<ImportPreview> {
-  return (await check(opts.labId, opts.input)).preview;
+export async function previewImport(opts: { labId: string; input: unknown }, t?: Transaction): Promise<ImportPreview> {
+  return (await check(opts.labId, opts.input, t)).preview;
 }
 
 /**
@@ -90,20 +91,21 @@ export async function previewImport(opts: { labId: string; input: unknown }): Pr
  * again, and refuses the whole file if any row has a problem (invalid_input, one issue
  * per problem with path rows.<row>.<field>). Otherwise writes every new location,
  * chemical and container, an "imported" ledger line per container and one audit entry,
- * all in one transaction: all rows or none.
+ * all in one transaction (the caller's `t` when given): all rows or none. The checks run
+ * inside that transaction too.
  * @throws AppError invalid_input, conflict (a barcode taken meanwhile).
  */
-export async function confirmImport(opts: { labId: string; actorUserId: string; input: unknown }) {
-  const { preview, rows } = await check(opts.labId, opts.input);
-  if (preview.issues.length) {
-    throw new AppError(
-      "invalid_input",
-      `The file has ${preview.issues.length} problem${preview.issues.length === 1 ? "" : "s"}; nothing was imported.`,
-      preview.issues.map((i) => ({ path: `rows.${i.row}.${i.field}`, message: `row ${i.row}, column ${i.column}: ${i.message}` })),
-    );
-  }
-  if (rows.length === 0) throw AppError.field("csv", "the file has no rows to import");
-  return transaction(async (t) => {
+export async function confirmImport(opts: { labId: string; actorUserId: string; input: unknown }, t?: Transaction) {
+  return inTransaction(t, async (t) => {
+    const { preview, rows } = await check(opts.labId, opts.input, t);
+    if (preview.issues.length) {
+      throw new AppError(
+        "invalid_input",
+        `The file has ${preview.issues.length} problem${preview.issues.length === 1 ? "" : "s"}; nothing was imported.`,
+        preview.issues.map((i) => ({ path: i.row === 0 ? (i.field === "file" ? "csv" : `mapping.${i.field}`) : `rows.${i.row}.${i.field}`, message: i.row === 0 ? i.message : `row ${i.row}, column ${i.column}: ${i.message}` })),
+      );
+    }
+    if (rows.length === 0) throw AppError.field("csv", "the file has no rows to import");
     const locations = new Map((await Location.findAll({ where: { labId: opts.labId }, transaction: t })).map((l) => [l.name.toLowerCase(), l.id]));
     const chems = new Map((await Chemical.findAll({ where: { labId: opts.labId, cas: { [Op.in]: [...new Set(rows.map((r) => r.cas))] } }, transaction: t })).map((c) => [c.cas!, c.id]));
     const created: string[] = [];
@@ -114,7 +116,7 @@ export async function confirmImport(opts: { labId: string; actorUserId: string; 
       if (r.location) {
         locationId = locations.get(r.location.toLowerCase()) ?? null;
         if (!locationId) {
-          const l = await Location.create({ labId: opts.labId, name: r.location, notes: null }, { transaction: t });
+          const l = await Location.create({ labId: opts.labId, name: r.location, notes: null }, { transaction: t }).catch((e: unknown) => uniqueToConflict(e, `rows.${r.row}.location`, `Location ${r.location} (row ${r.row}) was added meanwhile; nothing was imported. Import the file again.`));
           locations.set(r.location.toLowerCase(), l.id);
           locationId = l.id;
           newLocations++;
@@ -125,7 +127,7 @@ export async function confirmImport(opts: { labId: string; actorUserId: string; 
         const c = await Chemical.create(
           { labId: opts.labId, name: r.name!, cas: r.cas, formula: r.formula, molarMass: r.molarMass, density: r.density, physicalState: r.concentration ? "solution" : r.dimension === "volume" ? "liquid" : "solid", peroxideClass: null, storageNotes: null, lowStockBase: null, lowStockDimension: null },
           { transaction: t },
-        );
+        ).catch((e: unknown) => uniqueToConflict(e, `rows.${r.row}.cas`, `CAS ${r.cas} (row ${r.row}) was added to the catalogue meanwhile; nothing was imported. Import the file again.`));
         chems.set(r.cas, c.id);
         chemicalId = c.id;
         newChemicals++;

@@ -1,16 +1,16 @@
 import "server-only";
 import { AppError } from "@/lib/errors/app-error";
-import type { LedgerRow, ReservationRow } from "@/lib/schemas/inventory";
+import type { LedgerRow, ReservationRow } from "@/inventory/schemas";
 import { Chemical, Container, Reservation, StockLedgerEntry, User } from "@/lib/server/models";
-import { Op } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import { amountView } from "./common";
 
 /** A container's ledger, oldest first, with who made each change. @throws AppError not_found. */
-export async function containerLedger(opts: { labId: string; containerId: string }): Promise<LedgerRow[]> {
-  const c = await Container.findOne({ where: { id: opts.containerId, labId: opts.labId }, attributes: ["id", "dimension", "displayUnit"] });
+export async function containerLedger(opts: { labId: string; containerId: string }, t?: Transaction): Promise<LedgerRow[]> {
+  const c = await Container.findOne({ where: { id: opts.containerId, labId: opts.labId }, attributes: ["id", "dimension", "displayUnit"], transaction: t });
   if (!c) throw new AppError("not_found", "No such container in this lab.");
-  const lines = await StockLedgerEntry.findAll({ where: { containerId: c.id, labId: opts.labId }, order: [["id", "ASC"]] });
-  const users = await User.findAll({ where: { id: { [Op.in]: [...new Set(lines.map((l) => l.actorUserId).filter((x): x is string => !!x))] } }, attributes: ["id", "name"] });
+  const lines = await StockLedgerEntry.findAll({ where: { containerId: c.id, labId: opts.labId }, order: [["id", "ASC"]], transaction: t });
+  const users = await User.findAll({ where: { id: { [Op.in]: [...new Set(lines.map((l) => l.actorUserId).filter((x): x is string => !!x))] } }, attributes: ["id", "name"], transaction: t });
   const names = new Map(users.map((u) => [u.id, u.name]));
   return lines.map((l) => ({
     id: String(l.id),
@@ -26,7 +26,7 @@ export async function containerLedger(opts: { labId: string; containerId: string
 }
 
 /** The lab's reservations (newest first), optionally by status, plan or container. */
-export async function listReservations(opts: { labId: string; status?: "held" | "consumed" | "released" | "all"; planRef?: string; containerId?: string; limit?: number }): Promise<ReservationRow[]> {
+export async function listReservations(opts: { labId: string; status?: "held" | "consumed" | "released" | "all"; planRef?: string; containerId?: string; limit?: number }, t?: Transaction): Promise<ReservationRow[]> {
   const where: Record<string, unknown> = { labId: opts.labId };
   if (opts.status && opts.status !== "all") where.status = opts.status;
   if (opts.planRef) where.planRef = opts.planRef;
@@ -36,8 +36,9 @@ export async function listReservations(opts: { labId: string; status?: "held" | 
     include: [{ model: Container, as: "container", required: true, where: { labId: opts.labId }, include: [{ model: Chemical, as: "chemical", required: true }] }],
     order: [["createdAt", "DESC"]],
     limit: Math.min(opts.limit ?? 500, 2000),
+    transaction: t,
   });
-  const users = await User.findAll({ where: { id: { [Op.in]: [...new Set(rows.map((r) => r.reservedBy))] } }, attributes: ["id", "name"] });
+  const users = await User.findAll({ where: { id: { [Op.in]: [...new Set(rows.map((r) => r.reservedBy))] } }, attributes: ["id", "name"], transaction: t });
   const names = new Map(users.map((u) => [u.id, u.name]));
   return rows.map((r) => {
     const c = r.container!;

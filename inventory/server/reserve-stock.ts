@@ -1,8 +1,8 @@
 import "server-only";
-import { Op } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import { AppError, parseOrThrow, type FieldIssue } from "@/lib/errors/app-error";
-import { reserveInputSchema, type ReservationRow } from "@/lib/schemas/inventory";
-import { transaction } from "@/lib/server/db";
+import { reserveInputSchema, type ReservationRow } from "@/inventory/schemas";
+import { inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Container, Reservation } from "@/lib/server/models";
 import { toBase, formatAmount, unitInfo } from "../units";
@@ -14,14 +14,15 @@ import { amountView, appendLedger, heldBase } from "./common";
  * never deadlock), reads what open reservations already hold, and refuses (conflict,
  * naming the line) any amount above what is free. So concurrent requests never hold more
  * than a container has. Each reservation gets a ledger line (held +amount) and an audit
- * entry.
+ * entry. Runs in the caller's transaction `t` when given, so a flow such as "release a
+ * plan and reserve its stock" commits or rolls back as one.
  * @throws AppError invalid_input (bad lines or units), not_found (a container of another
  *   lab or none), conflict (not available, or not enough free).
  */
-export async function reserveStock(opts: { labId: string; actorUserId: string; input: unknown }): Promise<ReservationRow[]> {
+export async function reserveStock(opts: { labId: string; actorUserId: string; input: unknown }, t?: Transaction): Promise<ReservationRow[]> {
   const input = parseOrThrow(reserveInputSchema, opts.input);
   const ids = [...new Set(input.lines.map((l) => l.containerId))].sort();
-  return transaction(async (t) => {
+  return inTransaction(t, async (t) => {
     const containers = await Container.findAll({ where: { id: { [Op.in]: ids }, labId: opts.labId }, order: [["id", "ASC"]], lock: t.LOCK.UPDATE, transaction: t });
     const byId = new Map(containers.map((c) => [c.id, c]));
     const free = new Map<string, bigint>();

@@ -1,10 +1,18 @@
 import "server-only";
 import { createHash } from "node:crypto";
+import type { Transaction } from "sequelize";
 import { AppError } from "@/lib/errors/app-error";
-import { transaction } from "@/lib/server/db";
+import { toStorable } from "@/lib/schemas/text";
+import { inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Chemical, SafetyDataSheet } from "@/lib/server/models";
 import { sdsProblem } from "../sds";
+
+/** The uploaded file's name as stored: no path separators, quotes, line breaks, NUL or broken characters; at most 255 characters. */
+function storableFilename(name: string): string {
+  const clean = toStorable(name.slice(0, 255)).replace(/[\\/\r\n"\u0000-\u001f]/g, "_");
+  return clean.trim() || "safety-data-sheet.pdf";
+}
 
 /**
  * Stores (or replaces) a chemical's safety data sheet in the database (BYTEA), after
@@ -12,13 +20,13 @@ import { sdsProblem } from "../sds";
  * name, size and SHA-256.
  * @throws AppError not_found (chemical of another lab), invalid_input (not a PDF, too big).
  */
-export async function uploadSafetyDataSheet(opts: { labId: string; actorUserId: string; chemicalId: string; filename: string; bytes: Uint8Array }) {
+export async function uploadSafetyDataSheet(opts: { labId: string; actorUserId: string; chemicalId: string; filename: string; bytes: Uint8Array }, t?: Transaction) {
   const problem = sdsProblem(opts.bytes);
   if (problem) throw AppError.field("file", problem);
-  const filename = opts.filename.replace(/[\\/\r\n"]/g, "_").slice(0, 255) || "safety-data-sheet.pdf";
+  const filename = storableFilename(opts.filename);
   const sha256 = createHash("sha256").update(opts.bytes).digest("hex");
-  return transaction(async (t) => {
-    const chem = await Chemical.findOne({ where: { id: opts.chemicalId, labId: opts.labId }, transaction: t });
+  return inTransaction(t, async (t) => {
+    const chem = await Chemical.findOne({ where: { id: opts.chemicalId, labId: opts.labId }, lock: t.LOCK.UPDATE, transaction: t });
     if (!chem) throw new AppError("not_found", "No such chemical in this lab.");
     const existing = await SafetyDataSheet.findOne({ where: { chemicalId: chem.id, labId: opts.labId }, attributes: ["id", "filename", "sha256"], transaction: t });
     if (existing) await SafetyDataSheet.destroy({ where: { id: existing.id, labId: opts.labId }, transaction: t });
@@ -29,8 +37,8 @@ export async function uploadSafetyDataSheet(opts: { labId: string; actorUserId: 
 }
 
 /** A chemical's safety data sheet for download. @throws AppError not_found. */
-export async function getSafetyDataSheet(opts: { labId: string; chemicalId: string }) {
-  const sds = await SafetyDataSheet.findOne({ where: { chemicalId: opts.chemicalId, labId: opts.labId } });
+export async function getSafetyDataSheet(opts: { labId: string; chemicalId: string }, t?: Transaction) {
+  const sds = await SafetyDataSheet.findOne({ where: { chemicalId: opts.chemicalId, labId: opts.labId }, transaction: t });
   if (!sds) throw new AppError("not_found", "This chemical has no safety data sheet.");
   return { filename: sds.filename, data: sds.data, sizeBytes: sds.sizeBytes };
 }

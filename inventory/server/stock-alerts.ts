@@ -1,5 +1,5 @@
 import "server-only";
-import { QueryTypes } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
 import { db } from "@/lib/server/db";
 import { Chemical, Container, Location } from "@/lib/server/models";
 import { Op } from "sequelize";
@@ -14,12 +14,12 @@ export const NEAR_EXPIRY_DAYS = 30;
  * below their low-stock mark, containers expired or expiring within 30 days, and
  * peroxide formers whose test is due.
  */
-export async function stockAlerts(opts: { labId: string; today?: string }) {
+export async function stockAlerts(opts: { labId: string; today?: string }, t?: Transaction) {
   const today = opts.today ?? todayIso();
   const horizon = new Date(`${today}T00:00:00Z`);
   horizon.setUTCDate(horizon.getUTCDate() + NEAR_EXPIRY_DAYS);
   const soon = horizon.toISOString().slice(0, 10);
-  const intervals = await peroxideIntervalsFor(opts.labId);
+  const intervals = await peroxideIntervalsFor(opts.labId, t);
 
   const lowRows = await db().query<{ id: string; name: string; dim: "mass" | "volume"; mark: string; free: string }>(
     `SELECT ch.id, ch.name, ch.low_stock_dimension AS dim, ch.low_stock_base::text AS mark,
@@ -32,7 +32,7 @@ export async function stockAlerts(opts: { labId: string; today?: string }) {
       GROUP BY ch.id
      HAVING COALESCE(SUM(c.amount_base), 0) - COALESCE(SUM(h.held), 0) < ch.low_stock_base
       ORDER BY ch.name`,
-    { replacements: { lab: opts.labId, today }, type: QueryTypes.SELECT },
+    { replacements: { lab: opts.labId, today }, type: QueryTypes.SELECT, transaction: t },
   );
   const lowStock = lowRows.map((r) => ({ chemicalId: r.id, name: r.name, free: amountView(r.free, r.dim), mark: amountView(r.mark, r.dim) }));
 
@@ -40,9 +40,9 @@ export async function stockAlerts(opts: { labId: string; today?: string }) {
     { model: Chemical, as: "chemical", required: true },
     { model: Location, as: "location", required: false },
   ];
-  const expiring = await Container.findAll({ where: { labId: opts.labId, status: { [Op.in]: ["available", "quarantined"] }, expiresOn: { [Op.lte]: soon } }, include, order: [["expiresOn", "ASC"]] });
-  const peroxide = await Container.findAll({ where: { labId: opts.labId, status: { [Op.in]: ["available", "quarantined"] } }, include: [{ model: Chemical, as: "chemical", required: true, where: { peroxideClass: { [Op.ne]: null } } }, include[1]!], order: [["openedOn", "ASC"]] });
-  const held = await heldByContainer([...expiring, ...peroxide].map((c) => c.id));
+  const expiring = await Container.findAll({ where: { labId: opts.labId, status: { [Op.in]: ["available", "quarantined"] }, expiresOn: { [Op.lte]: soon } }, include, order: [["expiresOn", "ASC"]], transaction: t });
+  const peroxide = await Container.findAll({ where: { labId: opts.labId, status: { [Op.in]: ["available", "quarantined"] } }, include: [{ model: Chemical, as: "chemical", required: true, where: { peroxideClass: { [Op.ne]: null } } }, include[1]!], order: [["openedOn", "ASC"]], transaction: t });
+  const held = await heldByContainer([...expiring, ...peroxide].map((c) => c.id), t);
   const peroxideDue = peroxide
     .map((c) => containerRow(c, held.get(c.id) ?? 0n, intervals))
     .filter((r) => r.flags.peroxideTestDue !== null && r.flags.peroxideTestDue <= soon);

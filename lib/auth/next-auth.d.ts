@@ -10,5 +10,7 @@ declare module "next-auth" {
 declare module "next-auth/jwt" {
   interface JWT {
     uid?: string;
+    /** The user's session version when the token was issued (lib/auth/options.ts). */
+    sv?: number;
   }
 }

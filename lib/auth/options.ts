@@ -1,12 +1,31 @@
 import "server-only";
-import type { NextAuthOptions } from "next-auth";
+import type { NextAuthOptions, User as NextAuthUser } from "next-auth";
+import type { JWT } from "next-auth/jwt";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { AppError } from "@/lib/errors/app-error";
+import { User } from "@/lib/server/models";
 import { authenticate } from "./authenticate";
 
-/** next-auth configuration: e-mail and password, JWT sessions carrying the user id. */
+/** How long a session lasts, in seconds. */
+export const SESSION_MAX_AGE = 12 * 60 * 60;
+
+function sessionVersionOf(user: NextAuthUser): number {
+  return "sessionVersion" in user && typeof user.sessionVersion === "number" ? user.sessionVersion : 0;
+}
+
+/**
+ * Whether a session token is still good: its user exists and its session version is the
+ * user's current one (a password change raises it, ending every other session).
+ */
+async function stillValid(token: JWT): Promise<boolean> {
+  if (typeof token.uid !== "string") return false;
+  const user = await User.findByPk(token.uid, { attributes: ["id", "sessionVersion"] });
+  return !!user && user.sessionVersion === (token.sv ?? 0);
+}
+
+/** next-auth configuration: e-mail and password, JWT sessions carrying the user id and session version. */
 export const authOptions: NextAuthOptions = {
-  session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
+  session: { strategy: "jwt", maxAge: SESSION_MAX_AGE },
   pages: { signIn: "/signin" },
   providers: [
     CredentialsProvider({
@@ -25,8 +44,13 @@ export const authOptions: NextAuthOptions = {
   ],
   callbacks: {
     async jwt({ token, user }) {
-      if (user) token.uid = user.id;
-      return token;
+      if (user) {
+        token.uid = user.id;
+        token.sv = sessionVersionOf(user);
+        return token;
+      }
+      // Checked on every use: a token from before a password change is emptied (signed out).
+      return (await stillValid(token)) ? token : {};
     },
     async session({ session, token }) {
       if (session.user && typeof token.uid === "string") session.user.id = token.uid;

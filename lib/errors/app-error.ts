@@ -12,6 +12,9 @@ export type ErrorCode =
   | "not_found" // missing, or belongs to another lab (HTTP 404)
   | "conflict" // state does not allow it: stale version, shortfall, already approved (HTTP 409)
   | "rate_limited" // too many attempts (HTTP 429)
+  | "too_large" // the request body is larger than the route accepts (HTTP 413)
+  | "unsupported_media_type" // the body is not of the type the route takes, e.g. not application/json (HTTP 415)
+  | "method_not_allowed" // the route does not take this HTTP method (HTTP 405)
   | "infeasible" // valid input, but no plan satisfies it (HTTP 422, CLI exit 2)
   | "internal"; // a bug (HTTP 500, CLI exit 1)
 

@@ -8,6 +8,9 @@ export const HTTP_STATUS: Record<ErrorCode, number> = {
   not_found: 404,
   conflict: 409,
   rate_limited: 429,
+  too_large: 413,
+  unsupported_media_type: 415,
+  method_not_allowed: 405,
   infeasible: 422,
   internal: 500,
 };

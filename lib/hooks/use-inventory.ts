@@ -2,7 +2,7 @@
 
 import useSWR from "swr";
 import { getJson } from "@/lib/client/fetch-json";
-import type { ChemicalRow, ContainerRow, LedgerRow, ReservationRow } from "@/lib/schemas/inventory";
+import type { ChemicalRow, ContainerRow, LedgerRow, ReservationRow } from "@/inventory/schemas";
 
 export interface ContainerPage {
   rows: ContainerRow[];

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { ROLE_LABELS } from "@/lib/auth/roles";
-import { roleSchema } from "@/lib/schemas/membership";
+import { roleSchema } from "@/lib/members/schemas";
 import { defineMailRenderer } from "@/lib/jobs/mail/renderer";
 
 /** The invitation e-mail, built by the job worker from what inviteMember enqueues. */

@@ -2,7 +2,7 @@ import { beforeEach, describe, expect, it } from "vitest";
 import { SEED } from "../support/integration";
 import { authenticate, LOCKOUT } from "@/lib/auth/authenticate";
 import { authorizeLab } from "@/lib/auth/access";
-import { changeMemberRole } from "@/lib/members/change-member-role";
+import { changeMemberRole } from "@/lib/members/server/change-member-role";
 import { AppError } from "@/lib/errors/app-error";
 import { AuditEntry, Membership, SignInAttempt } from "@/lib/server/models";
 

@@ -13,7 +13,7 @@ import { QueryTypes } from "sequelize";
 import { SEED, db } from "../support/integration";
 import { SmtpCapture, attachmentContent, testSmtpPort, unfoldQuotedPrintable } from "../support/smtp-capture";
 import { AppError } from "@/lib/errors/app-error";
-import { hashToken, inviteMember } from "@/lib/members/invite-member";
+import { hashToken, inviteMember } from "@/lib/members/server/invite-member";
 import { enqueueMail } from "@/lib/jobs/mail/enqueue-mail";
 import { MAX_INLINE_ATTACHMENT_BYTES } from "@/lib/jobs/mail/message";
 import { transaction } from "@/lib/server/db";

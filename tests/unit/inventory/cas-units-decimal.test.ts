@@ -69,3 +69,12 @@ describe("stock units", () => {
     expect(formatAmount(150n, "mass", "mg")).toBe("0.15 mg");
   });
 });
+
+describe("parseDecimal refuses unbounded work", () => {
+  it("an exponent beyond 1000 is a RangeError at once, not a ten-million-digit BigInt", () => {
+    // Issue 9: "1e10000000" blocked the event loop for seconds before the bound.
+    expect(() => parseDecimal("1e10000000")).toThrow(RangeError);
+    expect(() => parseDecimal("1e-10000000")).toThrow(RangeError);
+    expect(parseDecimal("1e3")).toEqual(rational(1000n));
+  });
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { chemicalFormSchema, chemicalFromForm, chemicalInputSchema, containerInputSchema, reserveInputSchema } from "@/lib/schemas/inventory";
+import { chemicalFormSchema, chemicalFromForm, chemicalInputSchema, containerInputSchema, reserveInputSchema } from "@/inventory/schemas";
 
 describe("inventory schemas", () => {
   it("a chemical's CAS number is checked by its check digit", () => {

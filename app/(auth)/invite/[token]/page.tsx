@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { describeInvitation } from "@/lib/members/accept-invitation";
+import { describeInvitation } from "@/lib/members/server/accept-invitation";
 import { AppError } from "@/lib/errors/app-error";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { AcceptInvitationForm } from "@/components/auth/accept-invitation-form";

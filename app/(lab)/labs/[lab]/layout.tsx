@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { listMyLabs } from "@/lib/auth/access";
 import { navFor } from "@/lib/navigation";
 import { ROLE_LABELS } from "@/lib/auth/roles";

@@ -1,8 +1,8 @@
 import Link from "next/link";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { navFor } from "@/lib/navigation";
 import { ROLE_LABELS } from "@/lib/auth/roles";
-import { listMembers } from "@/lib/members/list-members";
+import { listMembers } from "@/lib/members/server/list-members";
 
 export const metadata = { title: "Overview" };
 

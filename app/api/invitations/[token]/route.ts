@@ -1,5 +1,5 @@
 import { readJson, route } from "@/lib/api/route";
-import { acceptInvitation, describeInvitation } from "@/lib/members/accept-invitation";
+import { acceptInvitation, describeInvitation } from "@/lib/members/server/accept-invitation";
 
 type Ctx = { params: Promise<{ token: string }> };
 

@@ -1,5 +1,5 @@
-import { pageLabAccess } from "@/lib/server/page-access";
-import { listAudit } from "@/lib/members/list-audit";
+import { pageLabAccess } from "@/lib/auth/page-access";
+import { listAudit } from "@/lib/members/server/list-audit";
 
 export const metadata = { title: "Audit log" };
 

@@ -1,5 +1,5 @@
-import { pageLabAccess } from "@/lib/server/page-access";
-import { listMembers } from "@/lib/members/list-members";
+import { pageLabAccess } from "@/lib/auth/page-access";
+import { listMembers } from "@/lib/members/server/list-members";
 import { MembersClient } from "@/components/members/members-client";
 
 export const metadata = { title: "Members" };

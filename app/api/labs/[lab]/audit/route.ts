@@ -1,6 +1,6 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { route } from "@/lib/api/route";
-import { listAudit } from "@/lib/members/list-audit";
+import { listAudit } from "@/lib/members/server/list-audit";
 
 type Ctx = { params: Promise<{ lab: string }> };
 

@@ -1,7 +1,7 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { readJson, route } from "@/lib/api/route";
-import { listMembers } from "@/lib/members/list-members";
-import { inviteMember } from "@/lib/members/invite-member";
+import { listMembers } from "@/lib/members/server/list-members";
+import { inviteMember } from "@/lib/members/server/invite-member";
 import { serverEnv } from "@/lib/server/env";
 
 type Ctx = { params: Promise<{ lab: string }> };

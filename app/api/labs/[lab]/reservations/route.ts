@@ -1,17 +1,16 @@
-import { z } from "zod";
 import { requireLabAccess } from "@/lib/auth/access";
 import { readJson, route } from "@/lib/api/route";
 import { parseOrThrow } from "@/lib/errors/app-error";
 import { reserveStock } from "@/inventory/server/reserve-stock";
 import { listReservations } from "@/inventory/server/ledger";
+import { reservationQuerySchema } from "@/inventory/schemas";
 
 type Ctx = { params: Promise<{ lab: string }> };
-const query = z.object({ status: z.enum(["held", "consumed", "released", "all"]).default("held"), planRef: z.string().max(100).optional() });
 
 /** The lab's reservations: ?status=held|consumed|released|all&planRef= */
 export const GET = route(async (req, { params }: Ctx) => {
   const { lab } = await requireLabAccess((await params).lab, "stock.read");
-  const q = parseOrThrow(query, Object.fromEntries(new URL(req.url).searchParams));
+  const q = parseOrThrow(reservationQuerySchema, Object.fromEntries(new URL(req.url).searchParams));
   return { reservations: await listReservations({ labId: lab.id, status: q.status, planRef: q.planRef }) };
 });
 

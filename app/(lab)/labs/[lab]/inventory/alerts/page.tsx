@@ -1,4 +1,4 @@
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { stockAlerts } from "@/inventory/server/stock-alerts";
 import { listChemicals } from "@/inventory/server/chemicals";

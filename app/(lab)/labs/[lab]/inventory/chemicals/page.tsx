@@ -1,4 +1,4 @@
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { listChemicals } from "@/inventory/server/chemicals";
 import { ChemicalsClient } from "@/components/inventory/chemicals-client";

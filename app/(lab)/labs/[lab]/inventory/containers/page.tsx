@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { listContainers } from "@/inventory/server/containers";
 import { listLocations } from "@/inventory/server/locations";

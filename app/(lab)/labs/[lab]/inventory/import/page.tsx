@@ -1,4 +1,4 @@
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { ImportClient } from "@/components/inventory/import-client";
 import { PageHeader } from "@/components/inventory/bits";
 

@@ -1,5 +1,6 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { readJson, route } from "@/lib/api/route";
+import { IMPORT_BODY_LIMIT } from "@/inventory/schemas";
 import { confirmImport } from "@/inventory/server/import-containers";
 
 type Ctx = { params: Promise<{ lab: string }> };
@@ -8,4 +9,4 @@ type Ctx = { params: Promise<{ lab: string }> };
 export const POST = route(async (req, { params }: Ctx) => {
   const access = await requireLabAccess((await params).lab, "stock.manage");
   return Response.json({ result: await confirmImport({ labId: access.lab.id, actorUserId: access.userId, input: await readJson(req) }) }, { status: 201 });
-});
+}, { maxBytes: IMPORT_BODY_LIMIT });

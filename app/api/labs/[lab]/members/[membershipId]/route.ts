@@ -1,7 +1,7 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { readJson, route } from "@/lib/api/route";
-import { changeMemberRole } from "@/lib/members/change-member-role";
-import { removeMember } from "@/lib/members/remove-member";
+import { changeMemberRole } from "@/lib/members/server/change-member-role";
+import { removeMember } from "@/lib/members/server/remove-member";
 
 type Ctx = { params: Promise<{ lab: string; membershipId: string }> };
 
@@ -11,8 +11,11 @@ export const PATCH = route(async (req, { params }: Ctx) => {
   return { membership: await changeMemberRole({ labId: access.lab.id, actorUserId: access.userId, membershipId: p.membershipId, input: await readJson(req) }) };
 });
 
-export const DELETE = route(async (_req, { params }: Ctx) => {
-  const p = await params;
-  const access = await requireLabAccess(p.lab, "members.manage");
-  return { removed: await removeMember({ labId: access.lab.id, actorUserId: access.userId, membershipId: p.membershipId }) };
-});
+export const DELETE = route(
+  async (_req, { params }: Ctx) => {
+    const p = await params;
+    const access = await requireLabAccess(p.lab, "members.manage");
+    return { removed: await removeMember({ labId: access.lab.id, actorUserId: access.userId, membershipId: p.membershipId }) };
+  },
+  { body: "none" },
+);

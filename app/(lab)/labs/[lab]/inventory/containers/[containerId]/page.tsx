@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors/app-error";
 import { getContainer } from "@/inventory/server/containers";

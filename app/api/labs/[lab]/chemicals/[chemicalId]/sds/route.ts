@@ -1,5 +1,5 @@
 import { requireLabAccess } from "@/lib/auth/access";
-import { route } from "@/lib/api/route";
+import { readForm, route } from "@/lib/api/route";
 import { AppError } from "@/lib/errors/app-error";
 import { getSafetyDataSheet, uploadSafetyDataSheet } from "@/inventory/server/safety-data-sheets";
 import { SDS_MAX_BYTES } from "@/inventory/sds";
@@ -21,21 +21,18 @@ export const GET = route(async (_req, { params }: Ctx) => {
   });
 });
 
-/** Uploads a PDF (multipart field "file"), checked by its first bytes and size. */
-export const POST = route(async (req, { params }: Ctx) => {
-  const p = await params;
-  const access = await requireLabAccess(p.lab, "chemicals.manage");
-  const length = Number(req.headers.get("content-length") ?? 0);
-  if (length > SDS_MAX_BYTES + 64 * 1024) throw AppError.field("file", "the file is larger than 10 MB");
-  let file: File | null = null;
-  try {
-    const form = await req.formData();
-    const f = form.get("file");
-    file = f instanceof File ? f : null;
-  } catch {
-    throw AppError.field("file", "send the PDF as multipart/form-data in the field \"file\"");
-  }
-  if (!file) throw AppError.field("file", "choose a PDF file");
-  const bytes = new Uint8Array(await file.arrayBuffer());
-  return Response.json({ sds: await uploadSafetyDataSheet({ labId: access.lab.id, actorUserId: access.userId, chemicalId: p.chemicalId, filename: file.name, bytes }) }, { status: 201 });
-});
+/**
+ * Uploads a PDF (multipart field "file"), checked by its first bytes and size. The body's
+ * size is enforced while it streams (route option maxBytes), before it is parsed.
+ */
+export const POST = route(
+  async (req, { params }: Ctx) => {
+    const p = await params;
+    const access = await requireLabAccess(p.lab, "chemicals.manage");
+    const f = readForm(req).get("file");
+    if (!(f instanceof File)) throw AppError.field("file", "choose a PDF file");
+    const bytes = new Uint8Array(await f.arrayBuffer());
+    return Response.json({ sds: await uploadSafetyDataSheet({ labId: access.lab.id, actorUserId: access.userId, chemicalId: p.chemicalId, filename: f.name, bytes }) }, { status: 201 });
+  },
+  { body: "multipart", maxBytes: SDS_MAX_BYTES + 64 * 1024 },
+);

@@ -1,5 +1,6 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { readJson, route } from "@/lib/api/route";
+import { IMPORT_BODY_LIMIT } from "@/inventory/schemas";
 import { previewImport } from "@/inventory/server/import-containers";
 
 type Ctx = { params: Promise<{ lab: string }> };
@@ -8,4 +9,4 @@ type Ctx = { params: Promise<{ lab: string }> };
 export const POST = route(async (req, { params }: Ctx) => {
   const { lab } = await requireLabAccess((await params).lab, "stock.manage");
   return { preview: await previewImport({ labId: lab.id, input: await readJson(req) }) };
-});
+}, { maxBytes: IMPORT_BODY_LIMIT });

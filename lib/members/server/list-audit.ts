@@ -1,4 +1,5 @@
 import "server-only";
+import type { Transaction } from "sequelize";
 import { AuditEntry, User } from "@/lib/server/models";
 
 export interface AuditRow {
@@ -13,10 +14,10 @@ export interface AuditRow {
 }
 
 /** The newest audit entries of one lab. */
-export async function listAudit({ labId, limit = 100 }: { labId: string; limit?: number }): Promise<AuditRow[]> {
-  const rows = await AuditEntry.findAll({ where: { labId }, order: [["id", "DESC"]], limit });
+export async function listAudit({ labId, limit = 100 }: { labId: string; limit?: number }, t?: Transaction): Promise<AuditRow[]> {
+  const rows = await AuditEntry.findAll({ where: { labId }, order: [["id", "DESC"]], limit, transaction: t });
   const actorIds = [...new Set(rows.map((r) => r.actorUserId).filter((x): x is string => !!x))];
-  const actors = new Map((await User.findAll({ where: { id: actorIds } })).map((u) => [u.id, u.name]));
+  const actors = new Map((await User.findAll({ where: { id: actorIds }, transaction: t })).map((u) => [u.id, u.name]));
   return rows.map((r) => ({
     id: String(r.id),
     at: r.createdAt.toISOString(),
