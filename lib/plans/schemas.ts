@@ -8,6 +8,7 @@
  */
 import { z } from "zod";
 import { planDocumentSchema } from "../chemistry/plan-document";
+import { text, uuid } from "../schemas/text";
 import { PLAN_STATES } from "./states";
 
 export const PLAN_DERIVATIONS = ["duplicate", "confirmation", "augmentation"] as const;
@@ -46,7 +47,7 @@ export const planUpdateSchema = planCreateSchema.extend(planSchema.pick({ versio
 export type PlanUpdateInput = z.input<typeof planUpdateSchema>;
 
 /** `POST /plans/{plan}/duplicate`: optionally a name for the copy (default "Copy of …"). */
-export const planDuplicateSchema = z.object({ name: z.string().trim().min(1).max(300).optional() }).prefault({});
+export const planDuplicateSchema = z.object({ name: text(300).min(1, "name the copy").optional() }).prefault({});
 
 /** `DELETE /plans/{plan}?version=`: the version is optional; when given it must be current. */
 export const planDeleteSchema = z.object({ version: z.coerce.number().int().min(1).optional() });
@@ -68,9 +69,9 @@ export const planQuerySchema = z.object({
     .transform((v) => (v ? v.split(",").map((s) => s.trim()).filter(Boolean) : []))
     .pipe(z.array(z.enum(PLAN_STATES, { message: `use one of ${PLAN_STATES.join(", ")}` }))),
   /** A member's user id, or "me". */
-  author: z.union([z.uuid(), z.literal("me")], { message: "a user id, or me" }).optional(),
-  study: z.uuid({ message: "a study id" }).optional(),
-  q: z.string().trim().max(200).optional(),
+  author: z.union([uuid(), z.literal("me")], { message: "a user id, or me" }).optional(),
+  study: uuid("a study id").optional(),
+  q: text(200).optional(),
   sort: z.enum(PLAN_SORTS).default("updatedAt"),
   dir: z.enum(["asc", "desc"]).default("desc"),
   page: z.coerce.number().int().min(1).max(100000).default(1),

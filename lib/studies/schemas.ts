@@ -6,17 +6,11 @@
  * list-query variants are derived from it. Forms use the same schemas through zodResolver.
  */
 import { z } from "zod";
+import { optionalText, text, uuid } from "../schemas/text";
 
 /** A response's name is a key in result rows and analysis requests (`?response=yield`). */
 export const RESPONSE_NAME_PATTERN = /^[A-Za-z][A-Za-z0-9_]*$/;
 
-const text = (max: number) => z.string().trim().max(max, `at most ${max} characters`);
-/** Optional text: empty becomes absent, so a cleared form field clears the value. */
-const optionalText = (max: number) =>
-  z
-    .union([text(max), z.null()])
-    .optional()
-    .transform((v) => (v ? v : null));
 const bound = z.number({ message: "enter a number" }).finite("enter a finite number").optional();
 
 export const RESPONSE_GOALS = ["maximize", "minimize", "target"] as const;
@@ -30,11 +24,8 @@ export const RESPONSE_GOAL_LABELS: Record<ResponseGoal, string> = { maximize: "M
  */
 export const studyResponseSchema = z
   .object({
-    name: z
-      .string()
-      .trim()
+    name: text(40)
       .min(1, "name the response")
-      .max(40, "at most 40 characters")
       .regex(RESPONSE_NAME_PATTERN, "letters, digits and _ only, starting with a letter (it is used as a key, e.g. yield)"),
     /** Unit of the response, e.g. "%", "area %", "mg". */
     unit: text(40).default(""),
@@ -75,14 +66,14 @@ export const studyResponsesSchema = z
 
 /** The study entity. */
 export const studySchema = z.object({
-  id: z.uuid(),
+  id: uuid(),
   name: text(200).min(1, "name the study"),
   /** The goal in words, e.g. "maximise assay yield of the biaryl; keep the homocoupling impurity under 2 area %". */
   goal: optionalText(2000),
   /** The product the study makes, in words or as a structure name. */
   targetProduct: optionalText(300),
   responses: studyResponsesSchema,
-  authorId: z.uuid(),
+  authorId: uuid(),
   authorName: z.string(),
   version: z.number().int().min(1),
   archivedAt: z.iso.datetime().nullable(),
@@ -108,7 +99,7 @@ export const STUDY_SORTS = ["name", "updatedAt", "createdAt"] as const;
 
 /** The list query of `GET /studies`: name filter, sort and server paging. */
 export const studyQuerySchema = z.object({
-  q: z.string().trim().max(200).optional(),
+  q: text(200).optional(),
   sort: z.enum(STUDY_SORTS).default("updatedAt"),
   dir: z.enum(["asc", "desc"]).default("desc"),
   page: z.coerce.number().int().min(1).max(100000).default(1),

@@ -267,7 +267,7 @@ describe("plans API", () => {
     expect(row).toMatchObject({ version: 1, contentHash: created.contentHash });
   });
 
-  it("another lab's plan is 404 (read, edit, delete), and so is an id that cannot exist", async () => {
+  it("another lab's plan is 404 (read, edit, delete); an id that cannot exist is 422 naming planId", async () => {
     const created = await createPlan(example());
     as(SEED.users.harrowChemist);
     const harrow = <P extends Record<string, string>>(params: P) => ctx(params, SEED.labs.harrow.slug);
@@ -277,7 +277,9 @@ describe("plans API", () => {
     expect((await studyPlans.POST(req("/x", "POST", { document: example() }), harrow({ studyId: studyId }))).status).toBe(404);
     expect((await planOne.GET(req("/x"), ctx({ planId: created.id }))).status).toBe(404); // not a member of Kestrel Bay
     as(SEED.users.chemist);
-    expect((await planOne.GET(req("/x"), ctx({ planId: "12345" }))).status).toBe(404);
+    const malformed = await planOne.GET(req("/x"), ctx({ planId: "12345" }));
+    expect(malformed.status).toBe(422);
+    expect(await issuePaths(malformed)).toEqual(["planId"]);
     expect(await Plan.findByPk(created.id)).toMatchObject({ version: 1 });
   });
 });

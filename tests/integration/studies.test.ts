@@ -122,7 +122,7 @@ describe("studies API", () => {
     expect(await Study.count({ where: { name: `Forbidden ${tag}` } })).toBe(0);
   });
 
-  it("another lab's study is 404, and so is an id that cannot exist", async () => {
+  it("another lab's study is 404; an id that cannot exist is 422 naming studyId", async () => {
     as(SEED.users.chemist);
     const { study } = (await (await studies.POST(req("/x", "POST", newStudy(`Private ${tag}`)), ctx({}))).json()) as StudyBody;
     as(SEED.users.harrowChemist);
@@ -130,6 +130,8 @@ describe("studies API", () => {
     const list = (await (await studies.GET(req(`/x?q=Private ${tag}`), ctx({}, SEED.labs.harrow.slug))).json()) as { total: number };
     expect(list.total).toBe(0);
     as(SEED.users.chemist);
-    expect((await studyOne.GET(req("/x"), ctx({ studyId: "not-a-uuid" }))).status).toBe(404);
+    const malformed = await studyOne.GET(req("/x"), ctx({ studyId: "not-a-uuid" }));
+    expect(malformed.status).toBe(422);
+    expect(((await malformed.json()) as { error: { issues: Array<{ path: string }> } }).error.issues.map((i) => i.path)).toEqual(["studyId"]);
   });
 });

@@ -1,4 +1,4 @@
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { SETTINGS_SECTIONS, SETTINGS_SECTION_PERMISSION, type SettingsSection } from "@/lib/lab-settings/schemas";
 import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";

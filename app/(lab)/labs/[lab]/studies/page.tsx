@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { listStudies } from "@/lib/studies/server/list-studies";
 import { StudiesClient } from "@/components/studies/studies-client";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AppError } from "@/lib/errors/app-error";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { getStudy } from "@/lib/studies/server/get-study";
 import { RESPONSE_GOAL_LABELS } from "@/lib/studies/schemas";

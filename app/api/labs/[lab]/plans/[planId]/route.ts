@@ -27,4 +27,4 @@ export const DELETE = route(async (req, { params }: Ctx) => {
   const input = Object.fromEntries(new URL(req.url).searchParams);
   const { id } = await deletePlan({ labId: access.lab.id, actorUserId: access.userId, planId: p.planId, input });
   return { deleted: id };
-});
+}, { body: "none" });

@@ -26,4 +26,4 @@ export const DELETE = route(async (req, { params }: Ctx) => {
   const access = await requireLabAccess(p.lab, "studies.manage");
   const restore = new URL(req.url).searchParams.get("restore") === "1";
   return { study: await archiveStudy({ labId: access.lab.id, actorUserId: access.userId, studyId: p.studyId, archived: !restore }) };
-});
+}, { body: "none" });

@@ -8,7 +8,7 @@ type Ctx = { params: Promise<{ lab: string; planId: string }> };
 export const POST = route(async (req, { params }: Ctx) => {
   const p = await params;
   const access = await requireLabAccess(p.lab, "plans.edit");
-  const hasBody = (req.headers.get("content-length") ?? "0") !== "0" || req.body !== null;
-  const input = hasBody ? await readJson(req).catch(() => ({})) : {};
+  const body = await readJson(req);
+  const input = body === undefined ? {} : body;
   return Response.json({ plan: await duplicatePlan({ labId: access.lab.id, actorUserId: access.userId, planId: p.planId, input }) }, { status: 201 });
 });

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AppError } from "@/lib/errors/app-error";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 import { getPlan } from "@/lib/plans/server/get-plan";
 import { PlanStateBadge } from "@/components/studies/bits";
 

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { pageLabAccess } from "@/lib/server/page-access";
+import { pageLabAccess } from "@/lib/auth/page-access";
 
 export const metadata = { title: "New plan" };
 
