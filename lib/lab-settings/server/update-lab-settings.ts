@@ -4,7 +4,7 @@ import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { audit } from "@/lib/server/audit";
 import { inTransaction } from "@/lib/server/db";
 import { Lab } from "@/lib/server/models";
-import { staleVersion } from "@/lib/studies/server/common";
+import { assertVersion } from "@/inventory/server/common";
 import { readLabSettings, settingsUpdateSchema, SETTINGS_SECTION_LABELS, type LabSettingsView, type SettingsSection } from "../schemas";
 
 /**
@@ -19,7 +19,7 @@ export async function updateLabSettings(opts: { labId: string; actorUserId: stri
   return inTransaction(t, async (tx) => {
     const lab = await Lab.findByPk(opts.labId, { attributes: ["id", "settings", "settingsVersion"], transaction: tx, lock: tx.LOCK.UPDATE });
     if (!lab) throw new AppError("not_found", "No such lab.");
-    if (lab.settingsVersion !== v.version) throw staleVersion("lab's settings", lab.settingsVersion);
+    assertVersion("lab's settings", lab.settingsVersion, v.version);
     const before = readLabSettings(lab.settings)[opts.section];
     const stored = lab.settings && typeof lab.settings === "object" ? lab.settings : {};
     lab.settings = { ...stored, [opts.section]: v.value };

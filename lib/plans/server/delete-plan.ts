@@ -3,7 +3,7 @@ import type { Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { audit } from "@/lib/server/audit";
 import { inTransaction } from "@/lib/server/db";
-import { staleVersion } from "@/lib/studies/server/common";
+import { assertVersion } from "@/inventory/server/common";
 import { planDeleteSchema } from "../schemas";
 import { DELETABLE_STATES, PLAN_STATE_LABELS, type PlanState } from "../states";
 import { findPlan, planAudit } from "./common";
@@ -22,7 +22,7 @@ export async function deletePlan(opts: { labId: string; actorUserId: string; pla
     if (!DELETABLE_STATES.includes(state)) {
       throw new AppError("conflict", `Only draft plans can be deleted; this one is ${PLAN_STATE_LABELS[state].toLowerCase()}. Cancel it instead.`, [{ path: "state", message: `${state} cannot be deleted` }]);
     }
-    if (v.version !== undefined && v.version !== plan.version) throw staleVersion("plan", plan.version);
+    if (v.version !== undefined) assertVersion("plan", plan.version, v.version);
     await audit({ labId: opts.labId, actorUserId: opts.actorUserId, action: "plan.deleted", entityType: "plan", entityId: plan.id, before: planAudit(plan) }, tx);
     await plan.destroy({ transaction: tx });
     return { id: plan.id };

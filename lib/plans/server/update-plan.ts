@@ -4,7 +4,7 @@ import { parseOrThrow } from "@/lib/errors/app-error";
 import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";
 import { audit } from "@/lib/server/audit";
 import { inTransaction } from "@/lib/server/db";
-import { staleVersion } from "@/lib/studies/server/common";
+import { assertVersion } from "@/inventory/server/common";
 import { planName, storedDocument } from "../document";
 import { planUpdateSchema } from "../schemas";
 import { stateAfterEdit } from "../states";
@@ -26,7 +26,7 @@ export async function updatePlan(opts: { labId: string; actorUserId: string; pla
   const body = parseOrThrow(planUpdateSchema, opts.input, "The plan is not valid.");
   return inTransaction(t, async (tx) => {
     const plan = await findPlan({ labId: opts.labId, planId: opts.planId, lock: true }, tx);
-    if (plan.version !== body.version) throw staleVersion("plan", plan.version);
+    assertVersion("plan", plan.version, body.version);
     const next = stateAfterEdit(plan.state);
     const { settings } = await getLabSettings({ labId: opts.labId }, tx);
     const stored = await storedDocument(body.document, settings, randomSeed);

@@ -55,10 +55,3 @@ export async function findStudy(opts: { labId: string; studyId: string; lock?: b
 export function studyAudit(s: Study): Record<string, unknown> {
   return { name: s.name, goal: s.goal, targetProduct: s.targetProduct, responses: s.responses, version: s.version, archivedAt: s.archivedAt };
 }
-
-/** 409 naming `version` when the record changed since it was read. */
-export function staleVersion(what: string, current: number): AppError {
-  return new AppError("conflict", `The ${what} was changed by someone else since you opened it (now version ${current}). Reload it and apply your change again.`, [
-    { path: "version", message: `stale: the current version is ${current}` },
-  ]);
-}

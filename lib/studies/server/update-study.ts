@@ -5,7 +5,8 @@ import { audit } from "@/lib/server/audit";
 import { inTransaction } from "@/lib/server/db";
 import { Plan, User } from "@/lib/server/models";
 import { studyUpdateSchema, type StudyRow } from "../schemas";
-import { findStudy, staleVersion, studyAudit, studyRow } from "./common";
+import { assertVersion } from "@/inventory/server/common";
+import { findStudy, studyAudit, studyRow } from "./common";
 
 /**
  * Changes a study's name, goal, target product or responses (only the fields sent), with
@@ -16,7 +17,7 @@ export async function updateStudy(opts: { labId: string; actorUserId: string; st
   const v = parseOrThrow(studyUpdateSchema, opts.input, "The study is not valid.");
   return inTransaction(t, async (tx) => {
     const study = await findStudy({ labId: opts.labId, studyId: opts.studyId, lock: true }, tx);
-    if (study.version !== v.version) throw staleVersion("study", study.version);
+    assertVersion("study", study.version, v.version);
     const before = studyAudit(study);
     if (v.name !== undefined) study.name = v.name;
     if (v.goal !== undefined) study.goal = v.goal;
