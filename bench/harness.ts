@@ -15,6 +15,8 @@ export interface BenchCase {
   setup?: () => unknown;
   /** The timed work; receives what setup returned. */
   run: (state: unknown) => unknown;
+  /** Extra lines printed under the case's result (a comparison, a check), not timed. */
+  note?: (result: BenchResult, state: unknown) => string[];
 }
 
 export interface BenchResult {
@@ -26,7 +28,7 @@ export interface BenchResult {
   repeat: number;
 }
 
-export function runCase(c: BenchCase): BenchResult {
+export function runCase(c: BenchCase): BenchResult & { notes: string[] } {
   const repeat = c.repeat ?? 15;
   const warmup = c.warmup ?? 3;
   const state = c.setup ? c.setup() : undefined;
@@ -40,5 +42,6 @@ export function runCase(c: BenchCase): BenchResult {
   times.sort((a, b) => a - b);
   const mid = Math.floor(times.length / 2);
   const median = times.length % 2 ? times[mid]! : (times[mid - 1]! + times[mid]!) / 2;
-  return { name: c.name, medianMs: median, minMs: times[0]!, maxMs: times[times.length - 1]!, targetMs: c.targetMs, repeat };
+  const result: BenchResult = { name: c.name, medianMs: median, minMs: times[0]!, maxMs: times[times.length - 1]!, targetMs: c.targetMs, repeat };
+  return { ...result, notes: c.note ? c.note(result, state) : [] };
 }

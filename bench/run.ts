@@ -1,6 +1,7 @@
 /**
  * `npm run bench`: runs every `bench/*.bench.ts` (each exports `cases: BenchCase[]`)
- * and prints one line per case. Pass a substring to run only matching cases.
+ * and prints one line per case (and any notes a case adds, e.g. the analysis bench's
+ * comparison with statsmodels). Pass a substring to run only matching cases.
  */
 import { readdirSync } from "node:fs";
 import { fileURLToPath, pathToFileURL } from "node:url";
@@ -22,5 +23,6 @@ for (const file of files) {
     console.log(
       `${r.name} | ${r.medianMs.toFixed(2)} | ${r.minMs.toFixed(2)}–${r.maxMs.toFixed(2)} | ${r.targetMs} | ${r.repeat} | ${verdict}`,
     );
+    for (const line of r.notes) console.log(`  ↳ ${line}`);
   }
 }

@@ -51,3 +51,6 @@ export {
   type ConstraintInput,
 } from "./constraints";
 export { fedorovExchange, gridCandidates, candidateMatrix, informationMatrix, logDetSpd, inverseSpd, cholesky, type DOptimalOptions, type DOptimalResult } from "./d-optimal";
+export { augmentToCentralComposite, orthogonalBlockingAlpha, type AugmentOptions, type AugmentAlpha, type Augmentation, type AugmentRun } from "./augment";
+export { naturalRecord, blockingAt, type SafetyCheck, type SafetyVerdict, type BlockingCaution, type FactorLimit } from "./safe-envelope";
+export { formatNumber, formatFactorValue, formatNatural } from "./format";

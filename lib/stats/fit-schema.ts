@@ -1,7 +1,9 @@
 /**
  * The `fit` input of CONTRACT.md as a zod schema. Added fields (optional):
  * `responseName` picks one response from runs that carry several in `responses`;
- * `predict` lists points at which to predict with intervals.
+ * `predict` lists points at which to predict with intervals; a run's `block` labels
+ * the plan (or block) it came from, for several plans analysed together; `exclude`
+ * leaves runs out by index with a reason.
  */
 import { z } from "zod";
 import { factorListSchema } from "../doe/factors";
@@ -15,6 +17,14 @@ export const observedRunSchema = z.object({
   coded: pointSchema.optional(),
   response: z.number().finite().optional(),
   responses: z.record(z.string(), z.number().finite()).optional(),
+  /** The block (plan, day, batch) the run belongs to; give it on every run or on none. */
+  block: z.union([z.string().trim().min(1).max(80), z.number().finite()]).optional(),
+});
+
+/** A run left out of the fit: its index in `runs` (0-based) and why (shown and recorded). */
+export const excludedRunSchema = z.object({
+  index: z.number().int().min(0),
+  reason: z.string().trim().min(1, "give a reason").max(500),
 });
 
 /** Backward elimination settings: level α (default 0.05) and whether hierarchy is kept (default true). */
@@ -31,13 +41,36 @@ export const fitFields = {
   transform: z.enum(["none", "ln"]).default("none"),
   prune: pruneSchema.optional(),
   responseName: z.string().min(1).optional(),
+  /** Runs left out (by index, with the reason); their responses may be missing. */
+  exclude: z.array(excludedRunSchema).max(100000).default([]),
 };
 
-type FitShape = { factors: { name: string }[]; runs: z.output<typeof observedRunSchema>[]; transform: "none" | "ln"; responseName?: string };
+type FitShape = {
+  factors: { name: string }[];
+  runs: z.output<typeof observedRunSchema>[];
+  transform: "none" | "ln";
+  responseName?: string;
+  exclude: z.output<typeof excludedRunSchema>[];
+};
 
-/** Checks the runs against the factors: values present, known names, responses present and (for ln) positive. */
+/**
+ * Checks the runs against the factors: values present, known names, responses present
+ * and (for ln) positive on every run that is not excluded; blocks on every run or none;
+ * exclusions inside `runs` and not repeated.
+ */
 export function checkRuns(d: FitShape, ctx: z.RefinementCtx, responseNames: (string | undefined)[] = [d.responseName]): void {
   const names = d.factors.map((f) => f.name);
+  const excluded = new Set<number>();
+  d.exclude.forEach((e, i) => {
+    if (e.index >= d.runs.length) ctx.addIssue({ code: "custom", path: ["exclude", i, "index"], message: `there are only ${d.runs.length} runs (indices from 0)` });
+    else if (excluded.has(e.index)) ctx.addIssue({ code: "custom", path: ["exclude", i, "index"], message: "is excluded twice" });
+    excluded.add(e.index);
+  });
+  const withBlock = d.runs.filter((r) => r.block !== undefined).length;
+  if (withBlock > 0 && withBlock < d.runs.length) {
+    const i = d.runs.findIndex((r) => r.block === undefined);
+    ctx.addIssue({ code: "custom", path: ["runs", i, "block"], message: "give every run a block, or none" });
+  }
   d.runs.forEach((r, i) => {
     const pt = r.coded ?? r.natural;
     const key = r.coded ? "coded" : "natural";
@@ -47,6 +80,7 @@ export function checkRuns(d: FitShape, ctx: z.RefinementCtx, responseNames: (str
     }
     for (const k of Object.keys(pt)) if (!names.includes(k)) ctx.addIssue({ code: "custom", path: ["runs", i, key, k], message: "is not one of the factors" });
     for (const n of names) if (pt[n] === undefined) ctx.addIssue({ code: "custom", path: ["runs", i, key, n], message: "is missing" });
+    if (excluded.has(i)) return;
     for (const rn of responseNames) {
       const y = rn === undefined ? r.response : (r.responses?.[rn] ?? (rn === d.responseName ? r.response : undefined));
       const path = rn === undefined ? ["runs", i, "response"] : r.responses ? ["runs", i, "responses", rn] : ["runs", i, "response"];

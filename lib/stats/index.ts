@@ -1,23 +1,26 @@
-/** The statistics engine's public API: model terms, least squares, fitting, distributions. */
+/** The statistics engine's public API: model terms, least squares, fitting, pruning, prediction, distributions. */
 export { buildTerms, parseTerm, termName, termValue, modelRow, termContains, isSquareTerm, termDegree, modelSpecSchema, type Term, type ModelSpec } from "./model-terms";
-export { leastSquaresQR, findAliasedColumns, scaledQr, refitSubset, fullFitOfSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ScaledQr } from "./least-squares";
+export { leastSquaresQR, leastSquaresColumns, findAliasedColumns, scaledQr, fullFitOfSubset, ALIAS_TOLERANCE, type LeastSquaresFit, type ScaledQr } from "./least-squares";
+export { ShrinkingQr } from "./qr-update";
 export { tQuantile, tTwoSidedP, fQuantile, fUpperP } from "./distributions";
-export { fitInputSchema, observedRunSchema, pruneSchema, predictPointSchema, type FitInput, type FitInputRaw } from "./fit-schema";
+export { fitInputSchema, observedRunSchema, excludedRunSchema, pruneSchema, predictPointSchema, type FitInput, type FitInputRaw } from "./fit-schema";
 export {
   fitModel,
   fitModelWithPredictor,
   fitParsed,
-  backwardEliminate,
-  pureError,
-  curvatureTest,
   codedRunsOf,
   type FitOutput,
-  type FittedModel,
   type TermEstimate,
   type AnovaRow,
   type FitStats,
   type Diagnostic,
-  type CanonicalOutput,
-  type CurvatureTest,
   type PointPrediction,
+  type BlockEffect,
+  type BlockSummary,
+  type ExcludedRun,
 } from "./fit";
+export { backwardEliminate, P_TIE_TOLERANCE, type EliminationStep, type EliminationResult, type PrunableColumn, type HeldTerm } from "./prune";
+export { pureError, curvatureTest, type CurvatureTest } from "./anova";
+export { blockCoding, blockSumOfSquares, type BlockCoding } from "./blocks";
+export { predictAt, predictModelScale, rowPrediction, type Prediction } from "./predict";
+export type { FittedModel } from "./fitted-model";

@@ -1,6 +1,16 @@
-/** The surface engine's public API: prediction, canonical analysis, optimisation, desirability. */
-export { predictAt, predictModelScale, type Prediction } from "./predict";
-export { canonicalAnalysis, quadraticParts, RIDGE_TOLERANCE, type CanonicalCoded, type SurfaceKind } from "./canonical";
+/** The surface engine's public API: the `fit` verb with canonical analysis, optimisation, desirability, grids. */
+export { fitResponseSurface, canonicalOfModel, type SurfaceFitOutput, type CanonicalOutput } from "./response-surface";
+export {
+  canonicalAnalysis,
+  describeCanonical,
+  quadraticParts,
+  RIDGE_TOLERANCE,
+  type CanonicalCoded,
+  type CanonicalDirection,
+  type CanonicalWords,
+  type RidgeKind,
+  type SurfaceKind,
+} from "./canonical";
 export { desirability, overallDesirability, desirabilitySpecSchema, type DesirabilitySpec } from "./desirability";
 export {
   maximizeQuadraticInCube,
@@ -15,5 +25,28 @@ export {
   type Region,
   type Objective,
 } from "./solvers";
-export { optimizeResponse, optimizeInputSchema, type OptimizeInput, type OptimizeOutput, type ResponseAtOptimum } from "./optimize";
-export { surfaceGrid, type SurfaceGrid, type SurfaceGridOptions } from "./grid";
+export {
+  optimizeResponse,
+  findOptimum,
+  optimizeInputSchema,
+  type OptimizeInput,
+  type OptimizeOutput,
+  type OptimumTarget,
+  type OptimumOptions,
+  type OptimumSafety,
+  type ResponseAtOptimum,
+} from "./optimize";
+export { maximizeWithFeasibility, type SafeSearchOptions, type SafeSearchResult } from "./safe-search";
+export { surfaceGrid, type SurfaceGrid, type SurfaceGridOptions, type GridCaution } from "./grid";
+export { studiedRanges, outsideStudied } from "./studied-region";
+export {
+  planConfirmation,
+  confirmationHolds,
+  predictMeanOf,
+  DEFAULT_SETTABLE_STEPS,
+  type ConfirmationOptions,
+  type ConfirmationPlan,
+  type ConfirmationVerdict,
+  type MeanPrediction,
+} from "./confirmation";
+export { steepestAscent, type SteepestAscentOptions, type SteepestAscentPath, type PathPoint } from "./steepest-ascent";

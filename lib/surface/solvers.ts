@@ -15,7 +15,7 @@
  *   region and the half-spaces by Dykstra's alternating projections (Boyle & Dykstra,
  *   1986), then a compass search polish for kinks.
  */
-import { EigenvalueDecomposition, Matrix } from "ml-matrix";
+import { CholeskyDecomposition, EigenvalueDecomposition, Matrix } from "ml-matrix";
 import type { Rng } from "../doe/randomize";
 
 /** f(x) = c + g'x + x'Hx with H symmetric. */
@@ -37,37 +37,21 @@ export function evalQuadratic(q: Quadratic, x: readonly number[]): number {
   return v;
 }
 
-/** Cholesky factor (lower, row-major) of an m×m matrix, or null when not positive definite. */
-function choleskyOf(A: Float64Array, m: number): Float64Array | null {
-  const L = new Float64Array(m * m);
-  for (let j = 0; j < m; j++) {
-    let d = A[j * m + j]!;
-    for (let k = 0; k < j; k++) d -= L[j * m + k]! ** 2;
-    if (!(d > 1e-13)) return null;
-    const r = Math.sqrt(d);
-    L[j * m + j] = r;
-    for (let i = j + 1; i < m; i++) {
-      let t = A[i * m + j]!;
-      for (let k = 0; k < j; k++) t -= L[i * m + k]! * L[j * m + k]!;
-      L[i * m + j] = t / r;
-    }
-  }
-  return L;
+/**
+ * Cholesky factorisation of an m×m matrix (ml-matrix's CholeskyDecomposition), or null
+ * when it is not safely positive definite (a pivot d ≤ 1e-13, the tolerance the face
+ * enumeration below relies on to skip singular faces).
+ */
+function choleskyOf(A: number[][]): CholeskyDecomposition | null {
+  const chol = new CholeskyDecomposition(new Matrix(A));
+  if (!chol.isPositiveDefinite()) return null;
+  const L = chol.lowerTriangularMatrix;
+  for (let j = 0; j < A.length; j++) if (!(L.get(j, j) ** 2 > 1e-13)) return null;
+  return chol;
 }
 
-function cholSolve(L: Float64Array, m: number, b: Float64Array): Float64Array {
-  const y = new Float64Array(m);
-  for (let i = 0; i < m; i++) {
-    let s = b[i]!;
-    for (let k = 0; k < i; k++) s -= L[i * m + k]! * y[k]!;
-    y[i] = s / L[i * m + i]!;
-  }
-  for (let i = m - 1; i >= 0; i--) {
-    let s = y[i]!;
-    for (let k = i + 1; k < m; k++) s -= L[k * m + i]! * y[k]!;
-    y[i] = s / L[i * m + i]!;
-  }
-  return y;
+function cholSolve(chol: CholeskyDecomposition, b: number[]): number[] {
+  return chol.solve(Matrix.columnVector(b)).getColumn(0);
 }
 
 /**
@@ -94,15 +78,14 @@ export function maximizeQuadraticInCube(q: Quadratic): { x: number[]; value: num
     let a: Float64Array | null = null;
     let M: Float64Array | null = null; // m × |X|
     if (m > 0) {
-      const negH = new Float64Array(m * m);
-      for (let r = 0; r < m; r++) for (let c = 0; c < m; c++) negH[r * m + c] = -2 * q.H[F[r]!]![F[c]!]!;
-      const L = choleskyOf(negH, m);
-      if (!L) continue;
+      const negH = F.map((r) => F.map((c) => -2 * q.H[r]![c]!));
+      const chol = choleskyOf(negH);
+      if (!chol) continue;
       // (−2H_FF) x_F = g_F + 2H_F,X x_X  ⇒  a = (−2H_FF)⁻¹ g_F, column j of M = (−2H_FF)⁻¹ 2H_F,X_j
-      a = cholSolve(L, m, Float64Array.from(F, (i) => q.g[i]!));
+      a = Float64Array.from(cholSolve(chol, F.map((i) => q.g[i]!)));
       M = new Float64Array(m * X.length);
       for (let j = 0; j < X.length; j++) {
-        const col = cholSolve(L, m, Float64Array.from(F, (i) => 2 * q.H[i]![X[j]!]!));
+        const col = cholSolve(chol, F.map((i) => 2 * q.H[i]![X[j]!]!));
         for (let r = 0; r < m; r++) M[r * X.length + j] = col[r]!;
       }
     }

@@ -1,6 +1,6 @@
-/** The `fit` verb (CONTRACT.md): runs and a model in, estimates, ANOVA and diagnostics out. */
-import { fitModel } from "../../stats";
+/** The `fit` verb (CONTRACT.md): runs and a model in, estimates, ANOVA, diagnostics and the canonical analysis out. */
+import { fitResponseSurface } from "../../surface";
 
 export function run(input: unknown): unknown {
-  return fitModel(input);
+  return fitResponseSurface(input).output;
 }

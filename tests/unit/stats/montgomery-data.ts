@@ -15,3 +15,11 @@ export const EX112 = {
   runs: PTS112.map(([x1, x2, y]) => ({ coded: { x1, x2 }, response: y })),
 };
 
+// Montgomery, Example 6.2 (unreplicated 2^4, filtration rate), responses in standard
+// order, A fastest (REFERENCE.md §6, [V]).
+export const Y62 = [45, 71, 48, 65, 68, 60, 80, 65, 43, 100, 45, 104, 75, 86, 70, 96];
+export const F4 = ["A", "B", "C", "D"].map((name) => ({ name, low: -1, high: 1 }));
+export const RUNS62 = Y62.map((y, r) => ({
+  coded: { A: r & 1 ? 1 : -1, B: r & 2 ? 1 : -1, C: r & 4 ? 1 : -1, D: r & 8 ? 1 : -1 },
+  response: y,
+}));

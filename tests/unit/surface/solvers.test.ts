@@ -91,18 +91,3 @@ describe("exact optima of quadratics", () => {
     expect(r.x[1]!).toBeCloseTo(0.2, 6);
   });
 });
-
-describe("surface grid for plots", () => {
-  it("evaluates the fitted model over two factors (Montgomery 11.2 fit, computed in this test)", async () => {
-    const { fitModelWithPredictor } = await import("../../../lib/stats");
-    const { surfaceGrid, predictAt } = await import("../../../lib/surface");
-    const { EX112 } = await import("../stats/montgomery-data");
-    const { model } = fitModelWithPredictor({ ...EX112, model: "quadratic" });
-    const g = surfaceGrid(model, { xFactor: "x1", yFactor: "x2", steps: 5 });
-    expect(g.xCoded).toEqual([-1, -0.5, 0, 0.5, 1]);
-    expect(g.z.length).toBe(5);
-    expect(g.z[2]![2]!).toBeCloseTo(model.coefficients[0]!, 12); // centre = intercept
-    expect(g.z[4]![0]!).toBeCloseTo(predictAt(model, [-1, 1]).predicted, 12); // z[j][i] at (x_i, y_j)
-    expect(() => surfaceGrid(model, { xFactor: "x1", yFactor: "x1" })).toThrow(/yFactor/);
-  });
-});

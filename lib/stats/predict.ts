@@ -6,9 +6,9 @@
  * ŷ ± t(0.975, df)·s·√(1 + f0'(X'X)⁻¹f0). With the ln transform the interval ends are
  * transformed back (exp), giving intervals on the original scale.
  */
-import { tQuantile } from "../stats/distributions";
-import type { FittedModel } from "../stats/fit";
-import { modelRow } from "../stats/model-terms";
+import { tQuantile } from "./distributions";
+import type { FittedModel } from "./fitted-model";
+import { modelRow } from "./model-terms";
 
 export interface Prediction {
   /** Predicted response on the original scale. */
@@ -29,25 +29,33 @@ export function predictModelScale(model: FittedModel, x: ArrayLike<number>): num
   return s;
 }
 
-/** Prediction with 95 % confidence and prediction intervals at coded point x. */
-export function predictAt(model: FittedModel, x: ArrayLike<number>): Prediction {
-  const f = modelRow(model.terms, x);
+/**
+ * The fitted value f'b of a model row f and its unscaled variance q = f'(X'X)⁻¹f
+ * (clipped at 0 against rounding): se(ŷ) = s·√q, and a new run's se = s·√(1 + q).
+ */
+export function rowPrediction(coefficients: readonly number[], covUnscaled: readonly (readonly number[])[], f: ArrayLike<number>): { yhat: number; q: number } {
   const p = f.length;
   let yhat = 0;
   let q = 0;
   for (let i = 0; i < p; i++) {
-    yhat += f[i]! * model.coefficients[i]!;
+    yhat += f[i]! * coefficients[i]!;
     let s = 0;
-    for (let j = 0; j < p; j++) s += model.covUnscaled[i]![j]! * f[j]!;
+    for (let j = 0; j < p; j++) s += covUnscaled[i]![j]! * f[j]!;
     q += f[i]! * s;
   }
+  return { yhat, q: Math.max(q, 0) };
+}
+
+/** Prediction with 95 % confidence and prediction intervals at coded point x. */
+export function predictAt(model: FittedModel, x: ArrayLike<number>): Prediction {
+  const { yhat, q } = rowPrediction(model.coefficients, model.covUnscaled, modelRow(model.terms, x));
   const back = (v: number) => (model.transform === "ln" ? Math.exp(v) : v);
   if (model.s2 === null || model.dfResidual <= 0) {
     return { predicted: back(yhat), predictedModelScale: yhat, stdError: null, ci95: null, pi95: null };
   }
   const t = tQuantile(0.975, model.dfResidual);
-  const se = Math.sqrt(model.s2 * Math.max(q, 0));
-  const sp = Math.sqrt(model.s2 * (1 + Math.max(q, 0)));
+  const se = Math.sqrt(model.s2 * q);
+  const sp = Math.sqrt(model.s2 * (1 + q));
   return {
     predicted: back(yhat),
     predictedModelScale: yhat,

@@ -1,0 +1,149 @@
+/**
+ * Maximising inside the region (cube or ball, with half-spaces) and a feasibility
+ * callback that can only be evaluated, not described (the safe envelope): a
+ * multi-start feasible-direction method. Starting points are the feasible ones among
+ * the design points and a random sample of the region; from the best, projected
+ * gradient ascent (lib/surface/solvers.ts, Armijo backtracking) treats an infeasible
+ * trial point like a failed sufficient-increase test and halves the step, and a
+ * compass search then slides along the envelope's edge (Kolda, Lewis & Torczon,
+ * "Optimization by direct search", SIAM Review 45, 2003, on pattern search with
+ * constraints handled by rejecting infeasible points — the "extreme barrier"). Every
+ * point returned has been evaluated by the callback and found feasible.
+ */
+import type { Rng } from "../doe/randomize";
+import { inRegion, projectOntoRegion, type Objective, type Region } from "./solvers";
+
+export interface SafeSearchOptions {
+  /** Random points sampled in the region for starts (default 400). */
+  samples?: number;
+  /** Starts refined (default 8). */
+  starts?: number;
+  /** At most this many feasibility calls in all (default 20 000). */
+  maxChecks?: number;
+}
+
+export interface SafeSearchResult {
+  x: number[];
+  value: number;
+  /** Feasibility calls made. */
+  checks: number;
+  /** True when the budget of calls ran out before the search finished. */
+  budgetSpent: boolean;
+}
+
+/**
+ * Maximises `obj` over the points of `region` where `feasible` holds. Throws
+ * RangeError("no feasible point") when no sampled point is feasible.
+ */
+export function maximizeWithFeasibility(
+  obj: Objective,
+  region: Region,
+  feasible: (x: readonly number[]) => boolean,
+  seeds: readonly (readonly number[])[],
+  rng: Rng,
+  options: SafeSearchOptions = {},
+): SafeSearchResult {
+  const samples = options.samples ?? 400;
+  const nStarts = options.starts ?? 8;
+  const maxChecks = options.maxChecks ?? 20_000;
+  const k = seeds[0]?.length ?? region.halfSpaces[0]?.a.length ?? 0;
+  let checks = 0;
+  const ok = (x: readonly number[]) => {
+    if (checks >= maxChecks) return false;
+    checks++;
+    return feasible(x);
+  };
+  const pool: { x: number[]; v: number }[] = [];
+  const consider = (p: readonly number[]) => {
+    const x = projectOntoRegion(region, p);
+    if (x && ok(x)) pool.push({ x, v: obj.f(x) });
+  };
+  seeds.forEach(consider);
+  const spread = region.kind === "sphere" ? region.radius : 1;
+  for (let i = 0; i < samples; i++) consider(Array.from({ length: k }, () => (2 * rng() - 1) * spread));
+  if (pool.length === 0) throw new RangeError("no feasible point");
+  pool.sort((a, b) => b.v - a.v);
+  const starts: number[][] = [];
+  for (const p of pool) {
+    if (starts.length >= nStarts) break;
+    if (starts.some((s) => s.reduce((acc, v, i) => acc + (v - p.x[i]!) ** 2, 0) < 1e-4)) continue;
+    starts.push(p.x);
+  }
+  let best = { x: pool[0]!.x, value: pool[0]!.v };
+  for (const s of starts) {
+    const a = feasibleAscent(obj, region, ok, s);
+    if (a.value > best.value) best = a;
+  }
+  const polished = feasibleCompass(obj, region, ok, best.x, best.value);
+  if (polished.value > best.value) best = polished;
+  return { x: best.x, value: best.value, checks, budgetSpent: checks >= maxChecks };
+}
+
+function gradient(obj: Objective, x: readonly number[]): number[] {
+  if (obj.grad) return obj.grad(x);
+  const h = 1e-6;
+  return x.map((_, i) => {
+    const a = [...x];
+    const b = [...x];
+    a[i]! += h;
+    b[i]! -= h;
+    return (obj.f(a) - obj.f(b)) / (2 * h);
+  });
+}
+
+/** Projected gradient ascent that rejects infeasible trial points (the step halves). */
+function feasibleAscent(obj: Objective, region: Region, ok: (x: readonly number[]) => boolean, start: readonly number[], maxIter = 120): { x: number[]; value: number } {
+  let x = [...start];
+  let fx = obj.f(x);
+  let step = 0.5;
+  for (let it = 0; it < maxIter; it++) {
+    const g = gradient(obj, x);
+    let accepted = false;
+    for (let bt = 0; bt < 30; bt++) {
+      const y = projectOntoRegion(region, x.map((v, i) => v + step * g[i]!));
+      if (!y) break;
+      const d2 = y.reduce((s, v, i) => s + (v - x[i]!) ** 2, 0);
+      if (d2 < 1e-22) break;
+      const fy = obj.f(y);
+      if (fy >= fx + (1e-4 / step) * d2 && ok(y)) {
+        const gain = fy - fx;
+        x = y;
+        fx = fy;
+        accepted = true;
+        step = Math.min(step * 2, 1e3);
+        if (gain < 1e-13 * (1 + Math.abs(fx))) return { x, value: fx };
+        break;
+      }
+      step /= 2;
+    }
+    if (!accepted) break;
+  }
+  return { x, value: fx };
+}
+
+/** Compass search polish over feasible points only (infeasible trial points count as no better). */
+function feasibleCompass(obj: Objective, region: Region, ok: (x: readonly number[]) => boolean, start: readonly number[], f0: number, initial = 0.05, minStep = 1e-6): { x: number[]; value: number } {
+  let x = [...start];
+  let fx = f0;
+  let step = initial;
+  const k = x.length;
+  while (step > minStep) {
+    let improved = false;
+    for (let i = 0; i < k && !improved; i++) {
+      for (const s of [1, -1]) {
+        const y = [...x];
+        y[i]! += s * step;
+        if (!inRegion(region, y)) continue;
+        const fy = obj.f(y);
+        if (fy > fx + 1e-15 * (1 + Math.abs(fx)) && ok(y)) {
+          x = y;
+          fx = fy;
+          improved = true;
+          break;
+        }
+      }
+    }
+    if (!improved) step /= 2;
+  }
+  return { x, value: fx };
+}
