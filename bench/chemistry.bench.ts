@@ -7,6 +7,35 @@
 import type { BenchCase } from "./harness";
 import { buildRunSheet } from "../lib/chemistry/run-sheet";
 import type { PlanDocumentInput } from "../lib/chemistry/plan-document";
+import { readFileSync } from "node:fs";
+import { pointSafety } from "../lib/chemistry/point-safety";
+
+/**
+ * The safety of every point of a 101 × 101 grid over temperature (20–220 °C) and water
+ * fraction (0–0.5) of the demo's Suzuki screen (examples/plan-suzuki.json), the other
+ * factors at their centre: 10 201 calls of the prepared `pointSafety` check (target
+ * ≤ 200 ms, i.e. ≤ 20 µs a point). Preparing the check is not timed.
+ */
+function safetyGrid() {
+  const doc = JSON.parse(readFileSync(new URL("../examples/plan-suzuki.json", import.meta.url), "utf8")) as PlanDocumentInput;
+  const at = pointSafety(doc);
+  const points: Array<Record<string, number>> = [];
+  for (let i = 0; i <= 100; i++) {
+    for (let j = 0; j <= 100; j++) {
+      points.push({ temperature: 20 + 2 * i, baseEquiv: 2.25, boronicEquiv: 1.3, pdLoading: 1.25, waterFraction: 0.005 * j });
+    }
+  }
+  return { at, points };
+}
+
+/** The same check at 10 201 scattered points of the studied box (no value repeats: nothing is shared between points). */
+function safetyScatter() {
+  const { at } = safetyGrid();
+  const rnd = lcg(11);
+  const box: Array<[string, number, number]> = [["temperature", 20, 220], ["baseEquiv", 1.5, 3], ["boronicEquiv", 1.1, 1.5], ["pdLoading", 0.5, 2], ["waterFraction", 0, 0.5]];
+  const points = Array.from({ length: 10201 }, () => Object.fromEntries(box.map(([k, lo, hi]) => [k, lo + ((hi - lo) * (rnd() + 1)) / 2])));
+  return { at, points };
+}
 
 const FACTOR_NAMES = ["temperature", "baseEquiv", "boronicEquiv", "pdLoading", "waterFraction"];
 
@@ -77,5 +106,31 @@ export const cases: BenchCase[] = [
     repeat: 15,
     setup: () => plan(1536),
     run: (doc) => buildRunSheet(doc),
+  },
+  {
+    name: "chemistry: pointSafety on a 101 × 101 grid (10 201 points)",
+    targetMs: 200,
+    warmup: 3,
+    repeat: 11,
+    setup: safetyGrid,
+    run: (state) => {
+      const { at, points } = state as ReturnType<typeof safetyGrid>;
+      let blocked = 0;
+      for (const p of points) if (at(p).blocking.length > 0) blocked++;
+      return blocked;
+    },
+  },
+  {
+    name: "chemistry: pointSafety at 10 201 scattered points (nothing shared)",
+    targetMs: 200,
+    warmup: 3,
+    repeat: 11,
+    setup: safetyScatter,
+    run: (state) => {
+      const { at, points } = state as ReturnType<typeof safetyScatter>;
+      let blocked = 0;
+      for (const p of points) if (at(p).blocking.length > 0) blocked++;
+      return blocked;
+    },
   },
 ];

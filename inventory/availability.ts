@@ -4,20 +4,22 @@
  * containers, peroxide formers past their test date and chemicals under their low-stock
  * mark. Pure: the caller loads the lab's chemicals and containers and passes them in.
  *
- * Order of preference (PRODUCT.md "Release"): first to expire first (FEFO), then opened
+ * Order of preference (the release rule): first to expire first (FEFO), then opened
  * containers before sealed ones, then the smaller available amount (use up part-used
  * containers), then barcode for a stable order. One container that covers the whole
  * requirement is preferred; otherwise containers are taken in that order until covered.
  */
 import { add, ceil, cmp, div, isZero, min, mul, rational, sub, toNumber, type Rational } from "./decimal";
 import { perBaseUnit, quantityInUnit, requirementQuantity, type ChemicalConstants, type ContainerChemistry } from "./conversion";
-import { peroxideTestDue, type PeroxideClass, type PeroxideIntervals } from "./peroxide";
+import { isPeroxideTestDue, peroxideTestDue, type PeroxideClass, type PeroxideIntervals } from "./peroxide";
 import { formatAmount, type Dimension } from "./units";
 
 export interface ChemicalFacts extends ChemicalConstants {
   id: string;
   name: string;
   peroxideClass: PeroxideClass | null;
+  /** GHS statements of the record (EUH019 without a class: an unclassified peroxide former). */
+  ghsStatements?: readonly string[];
   /** Low-stock mark in base units of `lowStockDimension`, or null for none. */
   lowStockBase: bigint | null;
   lowStockDimension: Dimension | null;
@@ -89,6 +91,19 @@ export function preferenceOrder(a: ContainerFacts, b: ContainerFacts): number {
   return a.barcode.localeCompare(b.barcode);
 }
 
+/** The date a container of `chem` is due its next peroxide test (lib/hazards/peroxide-due.ts), or null. */
+export function containerPeroxideDue(chem: ChemicalFacts, c: ContainerFacts, intervals: PeroxideIntervals): string | null {
+  return peroxideTestDue({
+    peroxideClass: chem.peroxideClass,
+    ghs: chem.ghsStatements ?? [],
+    openedOn: c.openedOn,
+    receivedOn: c.receivedOn,
+    testedOn: c.peroxideTestedOn,
+    expiresOn: c.expiresOn,
+    intervals,
+  });
+}
+
 /**
  * Proposes containers for every requirement (in the order given; amounts taken by one
  * requirement are no longer available to the next), with shortfalls and warnings.
@@ -132,9 +147,10 @@ export function proposeContainers(input: {
         warn({ code: "expired", chemicalId: chem.id, containerId: c.id, message: `${c.barcode} (${chem.name}) expired on ${c.expiresOn}; not proposed.` });
         continue;
       }
-      const due = peroxideTestDue({ peroxideClass: chem.peroxideClass, openedOn: c.openedOn, receivedOn: c.receivedOn, testedOn: c.peroxideTestedOn, intervals: input.peroxideIntervals });
-      if (due && due < input.today) {
-        warn({ code: "peroxide_test_due", chemicalId: chem.id, containerId: c.id, message: `${c.barcode} (${chem.name}) is a class ${chem.peroxideClass} peroxide former whose test was due on ${due}: test it before use.` });
+      const due = containerPeroxideDue(chem, c, input.peroxideIntervals);
+      if (due && isPeroxideTestDue(due, input.today)) {
+        const cls = chem.peroxideClass ? `a class ${chem.peroxideClass}` : "an unclassified";
+        warn({ code: "peroxide_test_due", chemicalId: chem.id, containerId: c.id, message: `${c.barcode} (${chem.name}) is ${cls} peroxide former whose test is due since ${due}: test it before use.` });
       }
       const per = perBaseUnit(q.measure, c, chem);
       if (!per.ok) {

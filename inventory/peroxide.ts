@@ -1,44 +1,40 @@
 /**
- * When a peroxide-forming container must next be tested: the last test (or the opening
- * date, or for a sealed container the receipt date) plus the lab's interval for its class
- * (lib/hazards/thresholds.ts: class A 3 months, B 12, C and D 12, unopened 18 months —
- * after Prudent Practices in the Laboratory, NRC 2011).
+ * The inventory's peroxide test dates: the hazard engine's rule (lib/hazards/peroxide-due.ts)
+ * applied to a chemical record and one of its containers, so the inventory's "test due"
+ * date and the plan cautions always agree.
  */
-export type PeroxideClass = "A" | "B" | "C" | "D";
-export interface PeroxideIntervals {
-  A: number;
-  B: number;
-  C: number;
-  D: number;
-  unopened: number;
-}
+import { impliedHazards, type PeroxideClass } from "@/lib/hazards/hazard-flags";
+import { isPeroxideTestDue, peroxideTestDue as dueOf } from "@/lib/hazards/peroxide-due";
+import type { PeroxideIntervals } from "@/lib/hazards/thresholds";
 
-/** Adds whole months to an ISO date (YYYY-MM-DD), clamping to the month's last day. */
-export function addMonths(isoDate: string, months: number): string {
-  const [y, m, d] = isoDate.split("-").map(Number) as [number, number, number];
-  const total = y * 12 + (m - 1) + Math.round(months);
-  const ny = Math.floor(total / 12);
-  const nm = total % 12;
-  const last = new Date(Date.UTC(ny, nm + 1, 0)).getUTCDate();
-  return `${String(ny).padStart(4, "0")}-${String(nm + 1).padStart(2, "0")}-${String(Math.min(d, last)).padStart(2, "0")}`;
-}
+export type { PeroxideClass } from "@/lib/hazards/hazard-flags";
+export type { PeroxideIntervals } from "@/lib/hazards/thresholds";
+export { isPeroxideTestDue };
 
 /**
- * The date a peroxide former's test falls due, or null when the container is not a
- * peroxide former or has no date to count from.
+ * The date a container's next peroxide test falls due (YYYY-MM-DD), or null when the
+ * chemical is not a peroxide former (no class and no EUH019) or the container has no date
+ * to count from. `openedOn: null` is an unopened container.
  */
 export function peroxideTestDue(opts: {
   peroxideClass: PeroxideClass | null;
+  /** The chemical's GHS statements: EUH019 without a class makes it an unclassified former. */
+  ghs?: readonly string[];
   openedOn: string | null;
   receivedOn: string | null;
   testedOn: string | null;
+  expiresOn?: string | null;
   intervals: PeroxideIntervals;
 }): string | null {
-  if (!opts.peroxideClass) return null;
-  if (opts.openedOn) {
-    const from = opts.testedOn && opts.testedOn > opts.openedOn ? opts.testedOn : opts.openedOn;
-    return addMonths(from, opts.intervals[opts.peroxideClass]);
-  }
-  const from = opts.testedOn ?? opts.receivedOn;
-  return from ? addMonths(from, opts.intervals.unopened) : null;
+  const cls = impliedHazards({ ghs: opts.ghs ?? [], peroxideClass: opts.peroxideClass }).peroxideClass;
+  return (
+    dueOf({
+      peroxideClass: cls,
+      openedOn: opts.openedOn,
+      receivedOn: opts.receivedOn,
+      testedOn: opts.testedOn,
+      expiresOn: opts.expiresOn ?? null,
+      intervals: opts.intervals,
+    })?.due ?? null
+  );
 }

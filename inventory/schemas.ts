@@ -11,6 +11,8 @@ import { parseDecimal, toDecimalString, type Rational } from "@/inventory/decima
 import { formatAmount, toBase, unitInfo } from "@/inventory/units";
 import { requirementQuantity } from "@/inventory/conversion";
 import { CSV_FIELDS } from "@/inventory/csv-fields";
+import { GHS_STATEMENT_PATTERN, PEROXIDE_CLASSES, ghsStatementsSchema } from "@/lib/hazards/hazard-flags";
+import { isoDateSchema } from "@/lib/hazards/iso-date";
 
 /** Text fields: trimmed, bounded and storable (lib/schemas/text.ts refuses NUL and lone surrogates). */
 const trimmed = (max: number) => text(max);
@@ -117,21 +119,12 @@ function stockAmountIssue(amount: string | undefined, unit: string | undefined, 
   }
 }
 
-/** The first and last years a date may carry (PostgreSQL refuses year 0000; no lab record is older than 1900). */
-const DATE_YEARS = { first: 1900, last: 2200 } as const;
-
 /**
  * A calendar date written YYYY-MM-DD: a real day (no 2027-02-30) of a year from 1900 to
- * 2200. The one date rule of the inventory (forms, API and CSV import).
+ * 2200 — Tareline's one date schema (lib/hazards/iso-date.ts), shared with the plan
+ * document and the hazard engine. The inventory's forms, API and CSV import use it.
  */
-export const isoDateSchema = safeString(40).superRefine((s, ctx) => {
-  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(s);
-  if (!m) return void ctx.addIssue({ code: "custom", message: "use YYYY-MM-DD" });
-  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
-  if (y < DATE_YEARS.first || y > DATE_YEARS.last) return void ctx.addIssue({ code: "custom", message: `use a year from ${DATE_YEARS.first} to ${DATE_YEARS.last}` });
-  const date = new Date(Date.UTC(y, mo - 1, d));
-  if (date.getUTCFullYear() !== y || date.getUTCMonth() !== mo - 1 || date.getUTCDate() !== d) ctx.addIssue({ code: "custom", message: "not a real date" });
-});
+export { isoDateSchema };
 const isoDate = isoDateSchema;
 const optionalDate = z
   .union([isoDate, z.literal(""), z.null()])
@@ -144,8 +137,8 @@ export const casSchema = text(20).superRefine((v, ctx) => {
 });
 
 export const PHYSICAL_STATES = ["solid", "liquid", "gas", "solution"] as const;
-export const PEROXIDE_CLASSES = ["A", "B", "C", "D"] as const;
-export const GHS_CODE = /^(H\d{3}[A-Za-z]*|EUH\d{3}[A-Za-z]*|P\d{3}(\+P\d{3})*)$/;
+export { PEROXIDE_CLASSES };
+export const GHS_CODE = GHS_STATEMENT_PATTERN;
 
 /** An optional reference to another record of the lab: a UUID, or "" / null for none. */
 const optionalId = z
@@ -176,7 +169,7 @@ const chemicalFields = {
   molarMass: molarMassSchema,
   density: densitySchema,
   physicalState: z.enum(PHYSICAL_STATES, { message: "choose solid, liquid, gas or solution" }),
-  ghsStatements: z.array(trimmed(40).toUpperCase().regex(GHS_CODE, "a GHS code such as H225, EUH019 or P210"), { message: "a list of GHS codes" }).max(80, "at most 80 statements"),
+  ghsStatements: ghsStatementsSchema,
   pyrophoric: z.boolean({ message: "true or false" }),
   waterReactive: z.boolean({ message: "true or false" }),
   peroxideClass: z

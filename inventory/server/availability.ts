@@ -18,6 +18,7 @@ export async function loadStockFacts(labId: string, chemicalIds: string[], t?: T
       molarMass: c.molarMass,
       density: c.density,
       peroxideClass: c.peroxideClass,
+      ghsStatements: c.ghsStatements,
       lowStockBase: c.lowStockBase === null ? null : BigInt(c.lowStockBase),
       lowStockDimension: c.lowStockDimension,
     })),

@@ -1,6 +1,7 @@
 import "server-only";
 import { QueryTypes, type Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
+import { impliedHazards } from "@/lib/hazards/hazard-flags";
 import { chemicalInputSchema, chemicalUpdateSchema, type ChemicalRow, type ChemicalValues } from "@/inventory/schemas";
 import { db, inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
@@ -9,14 +10,14 @@ import { fromBase, toBase } from "../units";
 import { toDecimalString } from "../decimal";
 import { amountView, assertVersion, uniqueToConflict } from "./common";
 
-/** The flags GHS statements imply: H250 pyrophoric; H260/H261 water-reactive; EUH019 peroxide former. */
+/**
+ * The flags GHS statements imply (lib/hazards/hazard-flags.ts, the one mapping): H250
+ * pyrophoric; H260/H261/EUH014 water-reactive. The peroxide class is stored as declared;
+ * EUH019 without a class makes an unclassified former wherever the record is used.
+ */
 function impliedFlags(v: Pick<ChemicalValues, "ghsStatements" | "pyrophoric" | "waterReactive" | "peroxideClass">) {
-  const codes = new Set(v.ghsStatements);
-  return {
-    pyrophoric: v.pyrophoric || codes.has("H250"),
-    waterReactive: v.waterReactive || codes.has("H260") || codes.has("H261"),
-    peroxideClass: v.peroxideClass ?? (codes.has("EUH019") ? ("B" as const) : null),
-  };
+  const h = impliedHazards({ ghs: v.ghsStatements, pyrophoric: v.pyrophoric, waterReactive: v.waterReactive, peroxideClass: v.peroxideClass });
+  return { pyrophoric: h.pyrophoric, waterReactive: h.waterReactive, peroxideClass: v.peroxideClass };
 }
 
 function attributes(v: ChemicalValues) {
@@ -39,8 +40,8 @@ function attributes(v: ChemicalValues) {
 
 /**
  * Adds a chemical to the lab's catalogue (CAS number checked by its check digit; unique
- * per lab). GHS statements set the matching flags (H250, H260/H261, EUH019 → class B
- * unless a class is given). Audited. Runs in the caller's transaction `t` when given.
+ * per lab). GHS statements set the matching flags (H250 pyrophoric, H260/H261/EUH014
+ * water-reactive; lib/hazards/hazard-flags.ts). Audited. Runs in the caller's transaction `t` when given.
  * @throws AppError invalid_input, conflict (CAS already in the catalogue).
  */
 export async function createChemical(opts: { labId: string; actorUserId: string; input: unknown }, t?: Transaction): Promise<{ id: string; version: number }> {

@@ -5,6 +5,7 @@ import { adjustAmountSchema, containerInputSchema, containerQuerySchema, contain
 import { inTransaction } from "@/lib/server/db";
 import { audit } from "@/lib/server/audit";
 import { Chemical, Container, Location } from "@/lib/server/models";
+import { impliedHazards } from "@/lib/hazards/hazard-flags";
 import { peroxideTestDue, type PeroxideIntervals } from "../peroxide";
 import { formatAmount, toBase, unitInfo } from "../units";
 import { amountView, appendLedger, assertVersion, heldBase, heldByContainer, peroxideIntervalsFor, uniqueToConflict } from "./common";
@@ -39,8 +40,8 @@ export function containerRow(c: Container, held: bigint, intervals: PeroxideInte
     flags: {
       pyrophoric: chem?.pyrophoric ?? false,
       waterReactive: chem?.waterReactive ?? false,
-      peroxideClass: chem?.peroxideClass ?? null,
-      peroxideTestDue: peroxideTestDue({ peroxideClass: chem?.peroxideClass ?? null, openedOn: c.openedOn, receivedOn: c.receivedOn, testedOn: c.peroxideTestedOn, intervals }),
+      peroxideClass: impliedHazards({ ghs: chem?.ghsStatements ?? [], peroxideClass: chem?.peroxideClass ?? null }).peroxideClass,
+      peroxideTestDue: peroxideTestDue({ peroxideClass: chem?.peroxideClass ?? null, ghs: chem?.ghsStatements ?? [], openedOn: c.openedOn, receivedOn: c.receivedOn, testedOn: c.peroxideTestedOn, expiresOn: c.expiresOn, intervals }),
     },
   };
 }

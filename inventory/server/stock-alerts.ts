@@ -41,7 +41,7 @@ export async function stockAlerts(opts: { labId: string; today?: string }, t?: T
     { model: Location, as: "location", required: false },
   ];
   const expiring = await Container.findAll({ where: { labId: opts.labId, status: { [Op.in]: ["available", "quarantined"] }, expiresOn: { [Op.lte]: soon } }, include, order: [["expiresOn", "ASC"]], transaction: t });
-  const peroxide = await Container.findAll({ where: { labId: opts.labId, status: { [Op.in]: ["available", "quarantined"] } }, include: [{ model: Chemical, as: "chemical", required: true, where: { peroxideClass: { [Op.ne]: null } } }, include[1]!], order: [["openedOn", "ASC"]], transaction: t });
+  const peroxide = await Container.findAll({ where: { labId: opts.labId, status: { [Op.in]: ["available", "quarantined"] } }, include: [{ model: Chemical, as: "chemical", required: true, where: { [Op.or]: [{ peroxideClass: { [Op.ne]: null } }, { ghsStatements: { [Op.contains]: ["EUH019"] } }] } }, include[1]!], order: [["openedOn", "ASC"]], transaction: t });
   const held = await heldByContainer([...expiring, ...peroxide].map((c) => c.id), t);
   const peroxideDue = peroxide
     .map((c) => containerRow(c, held.get(c.id) ?? 0n, intervals))

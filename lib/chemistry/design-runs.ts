@@ -13,7 +13,7 @@ import type { PlanDocument } from "./plan-document";
 export interface ResolvedRun {
   standardOrder: number;
   runOrder: number;
-  pointType: string;
+  kind: string;
   block: number | string | null;
   coded: Record<string, number>;
   natural: Record<string, number>;
@@ -47,7 +47,7 @@ export function resolveRuns(doc: PlanDocument): ResolvedRun[] {
       return {
         standardOrder: r.standardOrder,
         runOrder: r.runOrder ?? r.standardOrder,
-        pointType: r.pointType,
+        kind: r.kind,
         block: r.block ?? null,
         coded,
         natural,
@@ -74,7 +74,7 @@ export function resolveRuns(doc: PlanDocument): ResolvedRun[] {
   return out.runs.map((r) => ({
     standardOrder: r.standardOrder,
     runOrder: r.runOrder,
-    pointType: r.pointType,
+    kind: r.kind,
     block: r.block,
     coded: r.coded,
     natural: r.natural,

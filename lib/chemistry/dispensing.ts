@@ -1,7 +1,7 @@
 /**
  * Stock-solution and master-mix planning: how each component reaches each vial.
  *
- * Method (the usual practice of parallel reaction screening, REFERENCE.md §5):
+ * Method (the usual practice of parallel reaction screening; common practice):
  * - components whose amount is the same in every run go into a master mix per stock
  *   solvent (unless marked "add separately"; pyrophoric and water-reactive components
  *   never join a mix, and never a stock in a protic or aqueous solvent);
@@ -107,7 +107,7 @@ export interface DispensePlan {
   notes: PlanNote[];
 }
 
-interface Group {
+export interface Group {
   key: string;
   kind: "stock" | "master-mix";
   solvent: string;
@@ -130,7 +130,7 @@ function fmt(x: number, digits = 3): string {
 }
 
 /** Collects notes that apply to many runs into one note per (code, component). */
-class Notes {
+export class Notes {
   private map = new Map<string, PlanNote>();
   add(note: Omit<PlanNote, "runs">, run?: number | number[]): void {
     const key = `${note.code}|${note.component ?? ""}|${note.message}`;
@@ -144,22 +144,77 @@ class Notes {
   }
 }
 
+/** What every step of the dispensing plan works on. */
+export interface DispensingContext {
+  doc: PlanDocument;
+  d: Dispensing;
+  minPip: number;
+  infos: readonly ComponentInfo[];
+  runs: readonly RunAmounts[];
+  notes: Notes;
+  /** How each component is dispensed (changed by the steps as the plan is made). */
+  mode: DispenseMode[];
+  /** Volume (µL) of solvent `solvent` that run `ri` has for stocks and top-up. */
+  budget: (ri: number, solvent: string) => number;
+}
+
 /**
- * Plans stocks, master mixes, solids and neat dispenses for all runs.
+ * Plans stocks, master mixes, solids and neat dispenses for all runs, in named steps:
+ * {@link chooseModes}, {@link solventSystemVolumes}, {@link fitStocks} (with
+ * {@link buildGroups}), {@link diluteStocks}, {@link nameGroups}, {@link vialDispenses}
+ * and {@link prepareStock}.
  * @throws AppError("infeasible") naming the components and runs when the stocks of a
  *   solvent cannot fit into the vials, or neat liquids exceed the final volume.
  * @throws AppError("invalid_input") when a pyrophoric or water-reactive component is
  *   asked to be made into a stock in a protic or aqueous solvent.
  */
 export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[], runs: readonly RunAmounts[]): DispensePlan {
-  const d: Dispensing = doc.dispensing;
-  const minPip = d.minPipetteVolumeUl;
-  const notes = new Notes();
-  const solventsByName = new Map(doc.recipe.solvents.map((s) => [s.name, s]));
-  const nRuns = runs.length;
-  const mmolOf = (ci: number) => runs.map((r) => r.amounts[ci]!.mmol);
+  const ctx = dispensingContext(doc, infos, runs);
+  const { notes, mode } = ctx;
+  const groups = fitStocks(ctx);
+  diluteStocks(ctx, groups);
+  const sourceOf = nameGroups(groups, mode);
+  const { dispenses, solventVolumesUl, topUpsUl } = vialDispenses(ctx, groups);
+  const stocks: Stock[] = groups.map((g) => prepareStock(g, infos, runs, ctx.d, notes));
+  const modes = infos.map((info) => ({
+    id: info.component.id,
+    mode: mode[info.index]!,
+    source: sourceOf.get(info.index) ?? info.component.id,
+  }));
+  return { modes, stocks, dispenses, solventVolumesUl, topUpsUl, notes: notes.list() };
+}
 
-  // 1. Preliminary mode of every component.
+/**
+ * Steps 1 and 2 ({@link chooseModes}, {@link solventSystemVolumes}): the context the
+ * later steps work on.
+ * @throws AppError as those steps do.
+ */
+export function dispensingContext(doc: PlanDocument, infos: readonly ComponentInfo[], runs: readonly RunAmounts[]): DispensingContext & { systemVolume: number[] } {
+  const notes = new Notes();
+  const mode = chooseModes(doc, infos, runs, notes);
+  const systemVolume = solventSystemVolumes(infos, runs, mode);
+  return {
+    doc,
+    d: doc.dispensing,
+    minPip: doc.dispensing.minPipetteVolumeUl,
+    infos,
+    runs,
+    notes,
+    mode,
+    systemVolume,
+    budget: (ri, solvent) => (runs[ri]!.cond.solventFractions[solvent] ?? 0) * systemVolume[ri]!,
+  };
+}
+
+/**
+ * Step 1: how each component is dispensed before stocks are fitted — as the plan says,
+ * or (auto) solids and neat liquids into solution, a supplied solution as supplied unless
+ * some vial would get less than the minimum pipettable volume, and pyrophoric or
+ * water-reactive liquids as supplied, alone.
+ */
+export function chooseModes(doc: PlanDocument, infos: readonly ComponentInfo[], runs: readonly RunAmounts[], notes: Notes): DispenseMode[] {
+  const minPip = doc.dispensing.minPipetteVolumeUl;
+  const solventsByName = new Map(doc.recipe.solvents.map((s) => [s.name, s]));
   const mode: DispenseMode[] = infos.map((info) => {
     const c = info.component;
     const reactive = info.pyrophoric || info.waterReactive;
@@ -206,7 +261,15 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
     }
   });
 
-  // 2. Neat volumes and the solvent-system volume of each run.
+  return mode;
+}
+
+/**
+ * Step 2: the volume of the solvent system in each run — the final volume less the
+ * liquids dispensed as supplied.
+ * @throws AppError("infeasible") when those liquids alone exceed the final volume.
+ */
+export function solventSystemVolumes(infos: readonly ComponentInfo[], runs: readonly RunAmounts[], mode: readonly DispenseMode[]): number[] {
   const neatVolume = (ri: number) =>
     infos.reduce((a, info) => a + (mode[info.index] === "neat" ? (runs[ri]!.amounts[info.index]!.volumeUl ?? 0) : 0), 0);
   const systemVolume = runs.map((r, ri) => r.cond.finalVolumeUl - neatVolume(ri));
@@ -219,61 +282,80 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
       [{ path: "recipe.concentrationM", message: `runs ${overfull.join(", ")}: lower the concentration or raise the final volume` }],
     );
   }
-  const budget = (ri: number, solvent: string) => (runs[ri]!.cond.solventFractions[solvent] ?? 0) * systemVolume[ri]!;
 
-  // 3. Groups (stocks and master mixes) per solvent, with fallback to solids.
-  const buildGroups = (): Group[] => {
-    const groups: Group[] = [];
-    // Components that may share a solution, keyed by stock solvent and by the profile of
-    // their amounts over the runs (constant, or proportional to each other, such as a
-    // catalyst and its ligand at a fixed ratio).
-    const shared: Array<{ solvent: string; profile: number[]; members: number[] }> = [];
-    for (const info of infos) {
-      if (mode[info.index] !== "stock" && mode[info.index] !== "master-mix") continue;
-      const c = info.component;
-      const reactive = info.pyrophoric || info.waterReactive;
-      if (c.addSeparately || reactive) {
-        groups.push(singleGroup(info));
-        continue;
-      }
-      const n = mmolOf(info.index);
-      const profile = n.map((v) => v / n[0]!);
-      const same = shared.find(
-        (s) => s.solvent === info.stockSolvent && s.profile.every((v, ri) => Math.abs(v - profile[ri]!) <= REL * Math.max(Math.abs(v), 1e-300)),
-      );
-      if (same) same.members.push(info.index);
-      else shared.push({ solvent: info.stockSolvent, profile, members: [info.index] });
-    }
-    for (const { solvent, members } of shared) {
-      if (members.length === 1) {
-        groups.push(singleGroup(infos[members[0]!]!));
-        continue;
-      }
-      const lead = mmolOf(members[0]!);
-      const basis = lead.map((v) => v / lead[0]!);
-      const constant = isConstant(lead);
-      // One solution for all members: volume(r) = basis(r) · v0 with v0 ≥ minPip / min basis,
-      // ≥ 1000·n/solubility and ≥ Σ 1000·n/intrinsic (liquids and supplied solutions), n in run 1.
-      let v0 = minPip / Math.min(...basis);
-      let liquidSum = 0;
-      for (const m of members) {
-        const info = infos[m]!;
-        const n = runs[0]!.amounts[m]!.mmol;
-        if (Number.isFinite(info.solubilityM)) v0 = Math.max(v0, (1000 * n) / info.solubilityM);
-        if (Number.isFinite(info.intrinsicMaxM)) liquidSum += (1000 * n) / info.intrinsicMaxM;
-      }
-      v0 = Math.max(v0, liquidSum);
-      groups.push({ key: "", kind: constant ? "master-mix" : "stock", solvent, members, basis, kMax: 1 / v0, k: 1 / v0 });
-    }
-    return groups;
-  };
-  const singleGroup = (info: ComponentInfo): Group => {
-    const basis = mmolOf(info.index).map((n) => 1000 * n);
-    const kMax = Math.min(info.solubilityM, info.intrinsicMaxM, Math.min(...basis) / minPip);
-    return { key: "", kind: "stock", solvent: info.stockSolvent, members: [info.index], basis, kMax, k: kMax };
-  };
+  return systemVolume;
+}
 
-  let groups = buildGroups();
+/**
+ * The stocks and master mixes of the components in solution: one per component, or shared
+ * by components of one stock solvent whose amounts are constant (a master mix) or in
+ * proportion over the runs (a premix).
+ */
+export function buildGroups(ctx: DispensingContext): Group[] {
+  const { infos, runs, mode, minPip } = ctx;
+  const mmolOf = (ci: number) => runs.map((r) => r.amounts[ci]!.mmol);
+  const groups: Group[] = [];
+  // Components that may share a solution, keyed by stock solvent and by the profile of
+  // their amounts over the runs (constant, or proportional to each other, such as a
+  // catalyst and its ligand at a fixed ratio).
+  const shared: Array<{ solvent: string; profile: number[]; members: number[] }> = [];
+  for (const info of infos) {
+    if (mode[info.index] !== "stock" && mode[info.index] !== "master-mix") continue;
+    const c = info.component;
+    const reactive = info.pyrophoric || info.waterReactive;
+    if (c.addSeparately || reactive) {
+      groups.push(singleGroup(info, runs, minPip));
+      continue;
+    }
+    const n = mmolOf(info.index);
+    const profile = n.map((v) => v / n[0]!);
+    const same = shared.find(
+      (s) => s.solvent === info.stockSolvent && s.profile.every((v, ri) => Math.abs(v - profile[ri]!) <= REL * Math.max(Math.abs(v), 1e-300)),
+    );
+    if (same) same.members.push(info.index);
+    else shared.push({ solvent: info.stockSolvent, profile, members: [info.index] });
+  }
+  for (const { solvent, members } of shared) {
+    if (members.length === 1) {
+      groups.push(singleGroup(infos[members[0]!]!, runs, minPip));
+      continue;
+    }
+    const lead = mmolOf(members[0]!);
+    const basis = lead.map((v) => v / lead[0]!);
+    const constant = isConstant(lead);
+    // One solution for all members: volume(r) = basis(r) · v0 with v0 ≥ minPip / min basis,
+    // ≥ 1000·n/solubility and ≥ Σ 1000·n/intrinsic (liquids and supplied solutions), n in run 1.
+    let v0 = minPip / Math.min(...basis);
+    let liquidSum = 0;
+    for (const m of members) {
+      const info = infos[m]!;
+      const n = runs[0]!.amounts[m]!.mmol;
+      if (Number.isFinite(info.solubilityM)) v0 = Math.max(v0, (1000 * n) / info.solubilityM);
+      if (Number.isFinite(info.intrinsicMaxM)) liquidSum += (1000 * n) / info.intrinsicMaxM;
+    }
+    v0 = Math.max(v0, liquidSum);
+    groups.push({ key: "", kind: constant ? "master-mix" : "stock", solvent, members, basis, kMax: 1 / v0, k: 1 / v0 });
+  }
+  return groups;
+}
+
+/** A stock of one component: as concentrated as its solubility, the material and the minimum pipettable volume allow. */
+function singleGroup(info: ComponentInfo, runs: readonly RunAmounts[], minPip: number): Group {
+  const basis = runs.map((r) => 1000 * r.amounts[info.index]!.mmol);
+  const kMax = Math.min(info.solubilityM, info.intrinsicMaxM, Math.min(...basis) / minPip);
+  return { key: "", kind: "stock", solvent: info.stockSolvent, members: [info.index], basis, kMax, k: kMax };
+}
+
+/**
+ * Step 3: the groups, fitted into each solvent's share of every vial. While the stocks of
+ * a solvent do not fit, the auto-mode solid that uses most volume in the crowded runs is
+ * taken out of solution and weighed per vial (with a note).
+ * @throws AppError("infeasible") when nothing can be taken out and the stocks still do not fit.
+ */
+export function fitStocks(ctx: DispensingContext): Group[] {
+  const { infos, runs, mode, notes, budget } = ctx;
+  const nRuns = runs.length;
+  let groups = buildGroups(ctx);
   for (;;) {
     const over: Array<{ solvent: string; ri: number; need: number; have: number }> = [];
     for (const solvent of new Set(groups.map((g) => g.solvent))) {
@@ -339,10 +421,20 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
       } a stock would need more ${info.stockSolvent} than the vial has.`,
       remedy: "Weigh it per vial (or use a solid-dispensing aid); raising the final volume would allow a stock.",
     }, crowdedRuns);
-    groups = buildGroups();
+    groups = buildGroups(ctx);
   }
 
-  // 4. Dilute each solvent's stocks together; round concentrations to two significant figures.
+  return groups;
+}
+
+/**
+ * Step 4: dilutes each solvent's stocks together until the most crowded vial uses
+ * `stockFillFraction` of that solvent, and rounds each concentration down to two
+ * significant figures (kept only if every vial still fits).
+ */
+export function diluteStocks(ctx: DispensingContext, groups: Group[]): void {
+  const { d, runs, budget } = ctx;
+  const nRuns = runs.length;
   const alpha = d.stockFillFraction;
   for (const solvent of new Set(groups.map((g) => g.solvent))) {
     const gs = groups.filter((g) => g.solvent === solvent);
@@ -367,22 +459,33 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
     for (let ri = 0; ri < nRuns; ri++) if (!fits(ri)) ok = false;
     if (!ok) for (const g of gs) g.k = g.kMax / lambda;
   }
+}
 
-  // 5. Ids and names.
+/** Step 5: ids (S1, S2 … for stocks, MM1 … for master mixes) and the source of each component in solution. */
+export function nameGroups(groups: Group[], mode: DispenseMode[]): Map<number, string> {
   let sCount = 0;
   let mCount = 0;
   for (const g of groups) {
     g.key = g.kind === "master-mix" ? `MM${++mCount}` : `S${++sCount}`;
   }
 
-  // 6. Modes per component.
   const sourceOf = new Map<number, string>();
   for (const g of groups) for (const m of g.members) {
     sourceOf.set(m, g.key);
     mode[m] = g.kind === "master-mix" ? "master-mix" : "stock";
   }
+  return sourceOf;
+}
 
-  // 7. Per-run dispenses.
+/**
+ * Step 6: every vial's dispense list in order of addition (solids, top-ups, master
+ * mixes, stocks, catalyst and ligand stocks, liquids as supplied, reactive reagents last;
+ * `addOrder` overrides), with the solvent top-ups that give every vial its solvent
+ * volumes, and the notes on masses and volumes below the lab's limits.
+ */
+export function vialDispenses(ctx: DispensingContext, groups: readonly Group[]): Pick<DispensePlan, "dispenses" | "solventVolumesUl" | "topUpsUl"> {
+  const { doc, d, minPip, infos, runs, notes, mode, budget } = ctx;
+  const nRuns = runs.length;
   const defaultRank = (info: ComponentInfo, m: DispenseMode): number => {
     if (m === "solid") return 100;
     if (m === "master-mix") return 300;
@@ -507,16 +610,7 @@ export function planDispensing(doc: PlanDocument, infos: readonly ComponentInfo[
     solventVolumesUl.push(volumes);
     topUpsUl.push(tops);
   }
-
-  // 8. Stocks to prepare.
-  const stocks: Stock[] = groups.map((g) => prepareStock(g, infos, runs, d, notes));
-
-  const modes = infos.map((info) => ({
-    id: info.component.id,
-    mode: mode[info.index]!,
-    source: sourceOf.get(info.index) ?? info.component.id,
-  }));
-  return { modes, stocks, dispenses, solventVolumesUl, topUpsUl, notes: notes.list() };
+  return { dispenses, solventVolumesUl, topUpsUl };
 }
 
 /** Concentration (M) of member m in group g: 1000·n(r)·K/basis(r), the same in every run. */

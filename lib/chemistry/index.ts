@@ -10,5 +10,8 @@ export * from "./dispensing";
 export * from "./design-runs";
 export * from "./run-sheet";
 export * from "./caution-input";
+export * from "./inventory-facts";
 export * from "./plan-report";
+export * from "./validate-plan";
+export * from "./point-safety";
 export * from "./smiles";

@@ -1,13 +1,16 @@
 /**
  * The plan document: one JSON document for a whole plan — recipe, factors with their
  * bindings, design, vessel, lab thresholds, equipment and dispensing settings. The app
- * exports and imports it, and `cli plan` reads it (../shared/CONTRACT.md "plan").
+ * exports and imports it, and `cli plan` reads it (the README's `plan` verb).
  *
  * Every quantity carries its unit in its field name (`scaleMmol`, `densityGPerMl`,
  * `finalVolumeUl`, `solubilityMgPerMl`), or in the factor's `unit`.
  */
 import { z } from "zod";
 import { factorSchema } from "../doe/factors";
+import { hazardFlagFields } from "../hazards/hazard-flags";
+import { isoDateSchema } from "../hazards/iso-date";
+import { containerDateFields } from "../hazards/plan-cautions/schema";
 import { blockSchema, equipmentSchema, labThresholdsSchema } from "../hazards/thresholds";
 import { vesselTypeSchema, type VesselType } from "../hazards/vessels";
 
@@ -28,29 +31,19 @@ const componentId = z
   .string()
   .regex(COMPONENT_ID_PATTERN, "must start with a letter and contain only letters, digits, _ and -");
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}/, "must be an ISO date (YYYY-MM-DD)");
+/**
+ * A chemical of the lab's inventory (its id). Release reserves containers of it, and its
+ * hazard facts (statements, flags, class, container dates) come from the inventory
+ * (`applyInventoryFacts`): dates typed into a linked component are overwritten.
+ */
+const chemicalId = z.uuid("must be the id of a chemical of the lab's inventory");
 
-/** Hazard flags passed to the hazard engine's caution rules (lib/hazards). */
-export const hazardFlagsSchema = z
-  .strictObject({
-    /** GHS hazard statement codes, e.g. ["H225", "H250", "H261", "H314"]. */
-    ghs: z.array(z.string().regex(/^(EU)?H\d{3}[A-Za-z]*$/, "must be a GHS code such as H225 or EUH019")).default([]),
-    /** Catches fire in air (implied by H250). */
-    pyrophoric: z.boolean().optional(),
-    /** Releases flammable gas with water (implied by H260/H261). */
-    waterReactive: z.boolean().optional(),
-    /** Has an acidic O–H/N–H proton that destroys organometallics (alcohols, water, acids). */
-    protic: z.boolean().optional(),
-    /** Is or contains water. */
-    aqueous: z.boolean().optional(),
-    /** Peroxide-former class (Prudent Practices, NRC 2011), or null. */
-    peroxideClass: z.enum(["A", "B", "C", "D"]).nullable().optional(),
-    /** ISO date the container in use was opened. */
-    openedOn: isoDate.nullable().optional(),
-    /** ISO date of the last peroxide test. */
-    peroxideTestedOn: isoDate.nullable().optional(),
-  })
-  .prefault({});
+/**
+ * A component's hazards as the hazard engine's caution rules read them
+ * (lib/hazards/hazard-flags.ts): GHS statements, flags, peroxide class and the dates of
+ * the container in use.
+ */
+export const componentHazardsSchema = z.strictObject({ ...hazardFlagFields, ...containerDateFields }).prefault({});
 
 /** How a component is supplied. */
 export const formSchema = z.discriminatedUnion("state", [
@@ -120,7 +113,8 @@ export const componentSchema = z
     addOrder: z.number().int().min(0).max(1000).optional(),
     /** Gas released per mol of this component (mol/mol), for the sealed-vessel pressure. */
     gasReleasedMolPerMol: z.number().min(0).max(100).optional(),
-    hazards: hazardFlagsSchema,
+    hazards: componentHazardsSchema,
+    chemicalId: chemicalId.optional(),
   })
   .superRefine((c, ctx) => {
     if (c.formula === undefined && c.molarMassGPerMol === undefined) {
@@ -154,12 +148,12 @@ export const solventSchema = z.strictObject({
   /** Volume fraction in the solvent system (fractions sum to 1). */
   volumeFraction: z.number().min(0).max(1),
   /** Defaults: water is protic and aqueous; common alcohols are protic. */
-  protic: z.boolean().optional(),
-  aqueous: z.boolean().optional(),
-  ghs: z.array(z.string()).default([]),
-  peroxideClass: z.enum(["A", "B", "C", "D"]).nullable().optional(),
-  openedOn: isoDate.nullable().optional(),
-  peroxideTestedOn: isoDate.nullable().optional(),
+  protic: hazardFlagFields.protic,
+  aqueous: hazardFlagFields.aqueous,
+  ghs: hazardFlagFields.ghs,
+  peroxideClass: hazardFlagFields.peroxideClass,
+  ...containerDateFields,
+  chemicalId: chemicalId.optional(),
 });
 export type Solvent = z.output<typeof solventSchema>;
 
@@ -253,7 +247,10 @@ export type PlanFactor = z.output<typeof planFactorSchema>;
 export const designRunSchema = z.strictObject({
   standardOrder: z.number().int().min(1),
   runOrder: z.number().int().min(1).optional(),
-  pointType: z.string().min(1).max(40).default("factorial"),
+  /** The run's kind in its design: factorial, axial, center or optimal (or a kind of the caller's own). */
+  kind: z.string().min(1).max(40).default("factorial"),
+  /** The old name of `kind`: refused with a message that says so. */
+  pointType: z.never({ error: "was renamed kind (factorial, axial, center or optimal)" }).optional(),
   coded: z.record(z.string(), z.number().finite()).optional(),
   natural: z.record(z.string(), z.number().finite()).optional(),
   block: z.union([z.number(), z.string()]).optional(),
@@ -261,7 +258,7 @@ export const designRunSchema = z.strictObject({
 export type DesignRun = z.output<typeof designRunSchema>;
 
 /**
- * The design section: the CONTRACT.md `design` input without `factors`; `runs` is either
+ * The design section: the `design` verb's input without `factors`; `runs` is either
  * the d-optimal run count or the runs of a design already generated.
  */
 export const planDesignSchema = z
@@ -279,7 +276,7 @@ export const planDesignSchema = z
   });
 export type PlanDesign = z.output<typeof planDesignSchema>;
 
-/** Liquid-handling and weighing limits of the lab (REFERENCE.md §5, common practice). */
+/** Liquid-handling and weighing limits of the lab (common practice; docs/sources.md). */
 export const dispensingSchema = z
   .strictObject({
     /** Smallest volume dispensed (µL): practical minimum for air-displacement pipettes, 5–10 µL [CP]. */
@@ -288,7 +285,7 @@ export const dispensingSchema = z
     overagePercent: z.number().min(0).max(200).default(10),
     /** Liquid left in each stock container that cannot be drawn (µL) [CP]. */
     deadVolumeUl: z.number().min(0).max(100000).default(50),
-    /** Lab's minimum weighing mass (mg): USP ⟨41⟩ for a 4-place balance ≈ 82 mg (REFERENCE §5, from memory). */
+    /** Lab's minimum weighing mass (mg): USP general chapter ⟨41⟩ Balances (minimum weight for 0.10 % accuracy) for a 4-place balance ≈ 82 mg (from memory). */
     minWeighMassMg: z.number().min(0).max(100000).default(82),
     /** Largest stock that will be made up (mL), e.g. the largest volumetric flask at hand. */
     maxStockVolumeMl: z.number().gt(0).max(10000).default(25),
@@ -315,7 +312,7 @@ export const planDocumentSchema = z
     block: blockSchema.optional(),
     dispensing: dispensingSchema,
     /** ISO date used for container ages in the cautions (default today). */
-    now: isoDate.optional(),
+    now: isoDateSchema.optional(),
   })
   .superRefine((doc, ctx) => {
     const names = new Map<string, number>();

@@ -3,12 +3,13 @@
  * mixes to prepare; the per-vial dispense list in order of addition; per-run totals;
  * and the total needed of every chemical (what inventory reserves).
  */
-import { AppError, parseOrThrow } from "../errors/app-error";
-import { findDefaultVessel, type VesselType } from "../hazards/vessels";
-import { resolveRuns, type ResolvedRun } from "./design-runs";
+import { AppError } from "../errors/app-error";
+import type { VesselType } from "../hazards/vessels";
+import type { ResolvedRun } from "./design-runs";
 import { planDispensing, type Dispense, type DispenseMode, type PlanNote, type RunAmounts, type Stock } from "./dispensing";
-import { planDocumentSchema, type Dispensing, type PlanDocument } from "./plan-document";
-import { componentAmounts, componentInfos, runConditions, type ComponentAmount, type ComponentInfo, type RunProblem } from "./stoichiometry";
+import type { Dispensing, PlanDocument } from "./plan-document";
+import { componentAmounts, runConditions, type ComponentAmount, type ComponentInfo, type RunProblem } from "./stoichiometry";
+import { validatePlan } from "./validate-plan";
 
 export interface RunSheetComponent extends ComponentAmount {
   dispensedAs: DispenseMode;
@@ -20,7 +21,7 @@ export interface RunSheetRun {
   run: number;
   standardOrder: number;
   runOrder: number;
-  pointType: string;
+  kind: string;
   block: number | string | null;
   coded: Record<string, number>;
   natural: Record<string, number>;
@@ -69,12 +70,22 @@ export interface RunSheet {
   notes: PlanNote[];
 }
 
-/** Resolves the plan's vessel: a vessel type, or the id of a default vessel type. */
-export function resolveVessel(doc: PlanDocument): VesselType {
-  if (typeof doc.vessel !== "string") return doc.vessel;
-  const v = findDefaultVessel(doc.vessel);
-  if (!v) throw AppError.field("vessel", `"${doc.vessel}" is not a known vessel type id; give the vessel type in full`);
-  return v;
+/** The final volumes (µL) a vessel takes: its working range, capped by its maximum fill at room temperature. */
+export function vesselVolumeRangeUl(vessel: VesselType): { minUl: number; maxUl: number } {
+  return { minUl: vessel.workingMinMl * 1000, maxUl: Math.min(vessel.workingMaxMl, vessel.maxFillFraction * vessel.totalVolumeMl) * 1000 };
+}
+
+/** Whether a final volume leaves the vessel's range (with the run sheet's tolerance of 1e-9). */
+export function vesselVolumeProblem(vessel: VesselType, finalVolumeUl: number): "above" | "below" | null {
+  const { minUl, maxUl } = vesselVolumeRangeUl(vessel);
+  if (finalVolumeUl > maxUl * (1 + 1e-9)) return "above";
+  if (finalVolumeUl < minUl * (1 - 1e-9)) return "below";
+  return null;
+}
+
+/** Gas released in a vial (mmol): Σ gasReleasedMolPerMol × mmol of each component. */
+export function gasReleased(infos: readonly ComponentInfo[], amounts: readonly ComponentAmount[]): number {
+  return infos.reduce((a, info) => a + (info.component.gasReleasedMolPerMol ?? 0) * amounts[info.index]!.mmol, 0);
 }
 
 function groupProblems(problems: RunProblem[]): AppError {
@@ -101,11 +112,8 @@ function groupProblems(problems: RunProblem[]): AppError {
  *   fill, or the stocks cannot fit.
  */
 export function buildRunSheet(input: unknown): RunSheet {
-  const doc: PlanDocument = parseOrThrow(planDocumentSchema, input, "The plan document is not valid.");
-  const vessel = resolveVessel(doc);
-  const infos = componentInfos(doc);
-  const resolved = resolveRuns(doc);
-  return buildFromRuns(doc, vessel, infos, resolved);
+  const { doc, vessel, infos, runs } = validatePlan(input);
+  return buildFromRuns(doc, vessel, infos, runs);
 }
 
 /** As {@link buildRunSheet}, for a parsed document and resolved runs. */
@@ -118,10 +126,9 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
   if (problems.length > 0) throw groupProblems(problems);
 
   // Vessel working range and maximum fill at room temperature.
-  const maxUl = Math.min(vessel.workingMaxMl, vessel.maxFillFraction * vessel.totalVolumeMl) * 1000;
-  const minUl = vessel.workingMinMl * 1000;
-  const tooMuch = runs.filter((r) => r.cond.finalVolumeUl > maxUl * (1 + 1e-9));
-  const tooLittle = runs.filter((r) => r.cond.finalVolumeUl < minUl * (1 - 1e-9));
+  const { minUl, maxUl } = vesselVolumeRangeUl(vessel);
+  const tooMuch = runs.filter((r) => vesselVolumeProblem(vessel, r.cond.finalVolumeUl) === "above");
+  const tooLittle = runs.filter((r) => vesselVolumeProblem(vessel, r.cond.finalVolumeUl) === "below");
   if (tooMuch.length > 0 || tooLittle.length > 0) {
     const parts: string[] = [];
     if (tooMuch.length > 0) {
@@ -134,8 +141,12 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
         `runs ${tooLittle.map((r) => r.run).join(", ")} have as little as ${Math.min(...tooLittle.map((r) => r.cond.finalVolumeUl))} µL, below the vessel's working minimum of ${minUl} µL`,
       );
     }
+    // The field that sets the volume: a concentration factor holding the scale (low
+    // concentration, large volume), else the recipe's scale.
+    const ci = doc.factors.findIndex((f) => f.binding.kind === "concentration" && f.binding.hold === "scale");
+    const path = ci >= 0 ? `factors.${ci}.${tooMuch.length > 0 ? "low" : "high"}` : "recipe.scaleMmol";
     throw new AppError("infeasible", `The final volume does not suit the vessel: ${parts.join("; ")}. Change the scale, the concentration or the vessel.`, [
-      { path: "recipe.scaleMmol", message: parts.join("; ") },
+      { path, message: parts.join("; ") },
     ]);
   }
 
@@ -148,12 +159,12 @@ export function buildFromRuns(doc: PlanDocument, vessel: VesselType, infos: Comp
     const dispense = plan.dispenses[ri]!;
     const dispensedVolumeUl = dispense.reduce((a, d) => a + (d.kind === "solid" ? 0 : (d.volumeUl ?? 0)), 0);
     const solidMassMg = dispense.reduce((a, d) => a + (d.kind === "solid" ? (d.massMg ?? 0) : 0), 0);
-    const gasReleasedMmol = infos.reduce((a, info) => a + (info.component.gasReleasedMolPerMol ?? 0) * r.amounts[info.index]!.mmol, 0);
+    const gasReleasedMmol = gasReleased(infos, r.amounts);
     return {
       run: r.run,
       standardOrder: res.standardOrder,
       runOrder: res.runOrder,
-      pointType: res.pointType,
+      kind: res.kind,
       block: res.block,
       coded: res.coded,
       natural: res.natural,

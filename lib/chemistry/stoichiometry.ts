@@ -14,6 +14,7 @@
  *   supplied / density (mg ÷ g/mL = µL); of a solution V = n / molarity × 1000 (µL).
  */
 import { AppError } from "../errors/app-error";
+import { impliedHazards } from "../hazards/hazard-flags";
 import { formulaMolarMass } from "./molar-mass";
 import type { Component, PlanDocument } from "./plan-document";
 import { toCanonical } from "./units";
@@ -93,7 +94,7 @@ export function componentInfos(doc: PlanDocument): ComponentInfo[] {
       intrinsicMaxM =
         form.molarityM ?? ((form.densityGPerMl ?? 0) * 1000 * ((form.wtPercent ?? 0) / 100)) / molarMassGPerMol;
     }
-    const ghs = new Set(component.hazards.ghs);
+    const hazards = impliedHazards(component.hazards);
     return {
       index,
       component,
@@ -101,8 +102,8 @@ export function componentInfos(doc: PlanDocument): ComponentInfo[] {
       intrinsicMaxM,
       solubilityM: component.solubilityMgPerMl !== undefined ? component.solubilityMgPerMl / molarMassGPerMol : Infinity,
       stockSolvent: component.stockSolvent ?? major,
-      pyrophoric: component.hazards.pyrophoric ?? ghs.has("H250"),
-      waterReactive: component.hazards.waterReactive ?? (ghs.has("H260") || ghs.has("H261") || ghs.has("EUH014")),
+      pyrophoric: hazards.pyrophoric,
+      waterReactive: hazards.waterReactive,
       protic: component.hazards.protic ?? false,
       aqueous: component.hazards.aqueous ?? false,
     };

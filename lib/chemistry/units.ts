@@ -62,7 +62,10 @@ export function toCanonical(kind: Binding["kind"], value: number, unit: string |
   return value * factor;
 }
 
-/** µL → mL with convert-units (µL is mm³ there). */
+/** Microlitres per millilitre, from convert-units (µL is mm³ there), read once: converting is on the hot path. */
+const UL_PER_ML = convert(1).from("ml").to("mm3");
+
+/** µL → mL (the factor from convert-units). */
 export function ulToMl(ul: number): number {
-  return convert(ul).from("mm3").to("ml");
+  return ul / UL_PER_ML;
 }

@@ -1,5 +1,5 @@
 /**
- * Tareline's engine command line (../shared/CONTRACT.md):
+ * Tareline's engine command line (its contract is in the README):
  *
  *     npm run -s cli -- <verb> < input.json > output.json
  *

@@ -1,6 +1,6 @@
 /**
  * Linear constraints on natural factor values, written as text such as
- * "temperature + 20*time <= 400" (CONTRACT.md `constraints`). Parsed by a small
+ * "temperature + 20*time <= 400" (the `design` verb's `constraints`). Parsed by a small
  * recursive-descent parser into Σ aᵢ·uᵢ ≤ b; a constraint that is not linear is an
  * input error.
  */

@@ -1,5 +1,5 @@
 /**
- * Factors and their coding (PRODUCT.md "Computation"): a factor's natural value u is
+ * Factors and their coding (the usual coding of response-surface methodology): a factor's natural value u is
  * coded as x = (u − u0) / Δu with u0 = (high + low)/2 and Δu = (high − low)/2, so the
  * low level is −1 and the high level +1 (Montgomery, Design and Analysis of
  * Experiments, §6.2). A log-scale factor is coded the same way on ln u, which suits

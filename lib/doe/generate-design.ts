@@ -1,5 +1,5 @@
 /**
- * `generateDesign`: the CONTRACT.md `design` verb as a library function. Builds the
+ * `generateDesign`: the `design` verb (README) as a library function. Builds the
  * coded runs of the chosen design in standard order (factorial part in Yates order,
  * then axial points, then centre points; replicates repeat the whole list), assigns
  * blocks, decodes to natural units and sets a seeded random run order.
@@ -26,13 +26,14 @@ import {
 } from "./fractional";
 import { assignRunOrder, seededRng } from "./randomize";
 
-export type PointType = "factorial" | "axial" | "center" | "optimal";
+/** What a run is in its design (the run field `kind`). */
+export type RunKind = "factorial" | "axial" | "center" | "optimal";
 
-/** One run of a design (CONTRACT.md `design` output). */
+/** One run of a design (the `design` verb's output). */
 export interface DesignRun {
   standardOrder: number;
   runOrder: number;
-  pointType: PointType;
+  kind: RunKind;
   block: number;
   replicate: number;
   coded: Record<string, number>;
@@ -48,7 +49,7 @@ export interface DOptimalSummary {
   candidatesRemoved: number;
 }
 
-/** The CONTRACT.md `design` output, with added fields. */
+/** The `design` verb's output, with added fields. */
 export interface DesignOutput {
   design: DesignInput["design"];
   runs: DesignRun[];
@@ -71,7 +72,7 @@ export interface DesignOutput {
 
 interface Point {
   coded: number[];
-  pointType: PointType;
+  kind: RunKind;
   block: number;
   /** Natural values given by the caller (augmentation), kept exactly. */
   natural?: number[];
@@ -123,7 +124,7 @@ function dOptimalPoints(input: DesignInput, factors: readonly Factor[]): { point
   const kept = coded.filter((x) => satisfiesAll(constraints, x.map((v, i) => decodeValue(factors[i]!, v))));
   const F = candidateMatrix(terms, kept);
   const res = fedorovExchange(F, terms.length, { runs: input.runs!, seed: input.seed ?? 1, starts: input.starts });
-  const points: Point[] = res.indices.map((i) => ({ coded: [...kept[i]!], pointType: "optimal", block: 1 }));
+  const points: Point[] = res.indices.map((i) => ({ coded: [...kept[i]!], kind: "optimal", block: 1 }));
   return {
     points,
     summary: { model: terms.map((t) => t.name), logDet: res.logDet, dEfficiency: res.dEfficiency, candidates: kept.length, candidatesRemoved: total - kept.length },
@@ -131,7 +132,7 @@ function dOptimalPoints(input: DesignInput, factors: readonly Factor[]): { point
 }
 
 /**
- * Generates a design (CONTRACT.md `design`): full factorial 2^k (k ≤ 10), fractional
+ * Generates a design (the `design` verb): full factorial 2^k (k ≤ 10), fractional
  * factorial 2^(k−p) with given or minimum-aberration generators, central composite
  * (α rotatable F^¼, spherical √k, face-centred 1 or a number; circumscribed, or
  * inscribed with the axial points at the natural limits), Box–Behnken (k = 3…7) or
@@ -158,7 +159,7 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
   let nBlocks = 1;
 
   const centre = (count: number, blockOf: (j: number) => number) => {
-    for (let j = 0; j < count; j++) points.push({ coded: new Array<number>(k).fill(0), pointType: "center", block: blockOf(j) });
+    for (let j = 0; j < count; j++) points.push({ coded: new Array<number>(k).fill(0), kind: "center", block: blockOf(j) });
   };
 
   switch (input.design) {
@@ -168,7 +169,7 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
       const fp = factorialPoints(input, k, frac);
       blockWords = fp.blockWords;
       nBlocks = 2 ** blockWords.length;
-      for (const row of fp.rows) points.push({ coded: row, pointType: "factorial", block: blockOf(row, blockWords) });
+      for (const row of fp.rows) points.push({ coded: row, kind: "factorial", block: blockOf(row, blockWords) });
       centre(nCentre, (j) => (j % nBlocks) + 1);
       break;
     }
@@ -183,9 +184,9 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
           if (!isCentre && coded.some((v) => Math.abs(Math.abs(v) - 1) > 1e-6)) {
             throw AppError.field(`augment.runs.${i}`, "is neither a two-level factorial point (±1) nor a centre point");
           }
-          given.push({ coded, natural, pointType: isCentre ? "center" : "factorial", block: 1 });
+          given.push({ coded, natural, kind: isCentre ? "center" : "factorial", block: 1 });
         });
-        factorialRows = given.filter((g) => g.pointType === "factorial").map((g) => g.coded);
+        factorialRows = given.filter((g) => g.kind === "factorial").map((g) => g.coded);
         if (factorialRows.length < 2) throw AppError.field("augment.runs", "needs at least two factorial points");
       } else {
         frac = twoLevelPart(input, k);
@@ -199,15 +200,15 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
       if (input.augment) {
         points.push(...given);
       } else {
-        for (const row of factorialRows) points.push({ coded: row.map((v) => v * scale), pointType: "factorial", block: 1 });
+        for (const row of factorialRows) points.push({ coded: row.map((v) => v * scale), kind: "factorial", block: 1 });
       }
-      for (const row of axialPointsCoded(k, alpha)) points.push({ coded: row.map((v) => v * scale), pointType: "axial", block: axialBlock });
+      for (const row of axialPointsCoded(k, alpha)) points.push({ coded: row.map((v) => v * scale), kind: "axial", block: axialBlock });
       if (input.augment) centre(nCentre, () => 2);
       else centre(nCentre, (j) => (twoBlocks ? (j % 2) + 1 : 1));
       break;
     }
     case "box-behnken": {
-      for (const row of boxBehnkenCoded(k)) points.push({ coded: row, pointType: "factorial", block: 1 });
+      for (const row of boxBehnkenCoded(k)) points.push({ coded: row, kind: "factorial", block: 1 });
       centre(nCentre, () => 1);
       break;
     }
@@ -240,7 +241,7 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
         natural[f.name] = pt.natural ? pt.natural[i]! : decodeValue(f, c);
       });
       const block = input.blockByReplicate ? (rep - 1) * nBlocks + pt.block : pt.block;
-      runsOut.push({ standardOrder: so++, pointType: pt.pointType, block, replicate: rep, coded, natural });
+      runsOut.push({ standardOrder: so++, kind: pt.kind, block, replicate: rep, coded, natural });
     }
   }
 
@@ -257,7 +258,7 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
   const runs: DesignRun[] = runsOut.map((r, i) => ({
     standardOrder: r.standardOrder,
     runOrder: order[i]!,
-    pointType: r.pointType,
+    kind: r.kind,
     block: r.block,
     replicate: r.replicate,
     coded: r.coded,

@@ -1,9 +1,9 @@
 /**
- * The design engine's public API (interfaces.md): design input schema, generation,
+ * The design engine's public API: design input schema, generation,
  * factor coding, and the building blocks (fractions, CCD, Box–Behnken, D-optimal).
  */
 export { designInputSchema, givenRunSchema, DESIGN_KINDS, type DesignInput, type DesignInputRaw, type DesignKind } from "./design-schema";
-export { generateDesign, type DesignOutput, type DesignRun, type PointType, type DOptimalSummary } from "./generate-design";
+export { generateDesign, type DesignOutput, type DesignRun, type RunKind, type DOptimalSummary } from "./generate-design";
 export {
   factorSchema,
   factorListSchema,

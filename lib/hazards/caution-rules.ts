@@ -25,7 +25,7 @@ export interface CautionRule {
   remedy: string;
 }
 
-/** The standard notice every output that shows cautions carries (PRODUCT.md "Cautions"). */
+/** The standard notice every output that shows cautions carries. */
 export const PLANNING_NOTICE =
   "These cautions are planning aids, not a risk assessment. Local regulations, the institution's chemical hygiene plan and the judgement of qualified staff decide.";
 

@@ -2,6 +2,9 @@
  * The hazard engine: solvent data, vapour pressure, sealed-vessel pressure and the
  * caution rules for a plan. Pure: imports nothing from the app's frameworks.
  */
+export * from "./hazard-flags";
+export * from "./iso-date";
+export * from "./peroxide-due";
 export * from "./thresholds";
 export * from "./vessels";
 export * from "./solvent-record";

@@ -1,6 +1,6 @@
 /**
  * Pressure in a sealed vessel heated (or cooled) from its seal temperature, by the
- * model of ../shared/REFERENCE.md §2:
+ * model below (an ideal-gas and Raoult's-law estimate, docs/hazards.md):
  *
  *   P(T) ≈ P_air + P_v(T) + P_gas
  *   P_air = (P_seal − P_v(T_seal)) · (T/T_seal) · (V_head,seal / V_head,T)
@@ -14,7 +14,7 @@
 import { AppError } from "../errors/app-error";
 import { mixtureVaporPressure, type MixturePart, type MixtureVaporPressure } from "./vapor-pressure";
 
-/** Gas constant in L·bar/(mol·K) (REFERENCE.md §2). */
+/** Gas constant in L·bar/(mol·K): 8.314462618 J/(mol·K) (CODATA 2018) × 0.01 L·bar/J. */
 export const R_L_BAR_PER_MOL_K = 0.0831446;
 const ZERO_C_IN_K = 273.15;
 
@@ -49,7 +49,7 @@ export interface SealedVesselEstimate {
 }
 
 /**
- * Estimates the pressure in a sealed vessel (see the module comment; REFERENCE.md §2).
+ * Estimates the pressure in a sealed vessel (see the module comment).
  * Example: THF, 2 mL in 4 mL, sealed at 25 °C and 1 atm, heated to 120 °C → ≈ 5.6 bar.
  * @throws AppError invalid_input (paths `temperatureC`, `sealTemperatureC`) when a
  * temperature is below absolute zero or above a solvent's critical temperature.

@@ -1,11 +1,13 @@
 /**
- * Tareline's built-in solvent records (data, not code). Sources:
- * - vapour pressure: Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8 (DIPPR
- *   eq. 101) and the NIST Chemistry WebBook Antoine sets, both as quoted in
- *   ../shared/REFERENCE.md §1 (checked through third-party copies, tag V*);
- *   water by IAPWS-IF97 region 4;
- * - boiling, flash and autoignition points and peroxide classes: REFERENCE.md §3 with
- *   its tags; values REFERENCE.md does not list are from memory (tag M);
+ * Tareline's built-in solvent records (data, not code). Sources (docs/sources.md):
+ * - vapour pressure: Perry's Chemical Engineers' Handbook, 8th ed. (McGraw-Hill, 2008),
+ *   Table 2-8 (DIPPR equation 101), and the NIST Chemistry WebBook (NIST Standard
+ *   Reference Database 69) Antoine parameters, both checked through third-party copies
+ *   (tag V*); water by IAPWS-IF97 region 4;
+ * - boiling, flash and autoignition points: the International Chemical Safety Cards
+ *   (ILO/WHO) and the Laboratory Chemical Safety Summaries of Prudent Practices in the
+ *   Laboratory (National Research Council, 1995) where tagged V; from memory (tag M)
+ *   otherwise; peroxide classes after Prudent Practices in the Laboratory (2011);
  * - densities, expansion coefficients and GHS statements: from memory (tag M);
  * - molar masses: computed from the formula with IUPAC standard atomic weights (tag C;
  *   the unit tests recompute them with mf-parser).
@@ -14,17 +16,19 @@
  */
 import { solventRecordSchema, type SolventRecord, type SolventRecordInput, type SourceTag } from "./solvent-record";
 
-const PERRY = "Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8 (DIPPR eq. 101), as quoted in REFERENCE.md §1";
-const NIST = "NIST Chemistry WebBook Antoine parameters (public copies quoting NIST with ranges), REFERENCE.md §1";
-const FIRE = "REFERENCE.md §3 solvent fire data";
-const PEROX = "REFERENCE.md §3 peroxide-former classes (after Prudent Practices in the Laboratory, NRC 2011)";
+const PERRY = "Perry's Chemical Engineers' Handbook, 8th ed. (McGraw-Hill, 2008), Table 2-8 (DIPPR equation 101)";
+const NIST = "NIST Chemistry WebBook, NIST Standard Reference Database 69, Antoine equation parameters (as quoted with their ranges in public copies)";
+const FIRE_V = "checked against a published safety summary: International Chemical Safety Cards (ILO/WHO) or the Laboratory Chemical Safety Summaries of Prudent Practices in the Laboratory (National Research Council, 1995)";
+const FIRE_LCSS = "Prudent Practices in the Laboratory (National Research Council, National Academy Press, 1995), Laboratory Chemical Safety Summaries";
+const FIRE_M = "from memory (typical handbook or safety data sheet value), not checked against a published source";
+const PEROX = "Prudent Practices in the Laboratory (National Research Council, National Academies Press, 2011), chapter 4, classes of peroxide-forming chemicals";
 const MEM = "from memory (typical handbook or SDS value), not re-checked";
 const DENS = "from memory: handbook liquid density near 20 °C, not re-checked";
 const MM = "computed from the formula with IUPAC standard atomic weights";
-const EXP_ORG = "REFERENCE.md §2: 1.0–1.4×10⁻³ 1/K for organic solvents (from memory); upper end taken, the cautious choice";
+const EXP_ORG = "from memory: 1.0–1.4×10⁻³ 1/K for organic solvents; the upper end is taken, the cautious choice";
 const EXP_WATER = "from memory: mean expansion of water 25–120 °C from steam-table densities (0.997 → 0.943 g/mL)";
 const GHS = "from memory: typical EU CLP classification on supplier SDS, not re-checked";
-const TC_PERRY = "critical temperature = Tmax of Perry's Table 2-8 (REFERENCE.md §1)";
+const TC_PERRY = "critical temperature = Tmax of Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8";
 
 function n(value: number, source: string, tag: SourceTag) {
   return { value, source, tag };
@@ -50,9 +54,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(72.106, MM, "C"),
     densityGPerMl: n(0.889, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(66, FIRE, "V"),
-    flashPointC: n(-14, FIRE, "V"),
-    autoignitionC: n(321, FIRE, "V"),
+    normalBoilingPointC: n(66, FIRE_LCSS, "V"),
+    flashPointC: n(-14, FIRE_LCSS, "V"),
+    autoignitionC: n(321, FIRE_LCSS, "V"),
     criticalTemperatureK: n(540.15, TC_PERRY, "V*"),
     peroxideClass: { value: "B", source: PEROX, tag: "V" },
     ghs: { value: ["H225", "H302", "H319", "H335", "H351", "EUH019"], source: GHS, tag: "M" },
@@ -68,9 +72,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(92.141, MM, "C"),
     densityGPerMl: n(0.867, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(110.6, FIRE, "V"),
-    flashPointC: n(4, FIRE, "V"),
-    autoignitionC: n(480, FIRE, "V"),
+    normalBoilingPointC: n(110.6, FIRE_V, "V"),
+    flashPointC: n(4, FIRE_LCSS, "V"),
+    autoignitionC: n(480, FIRE_LCSS, "V"),
     criticalTemperatureK: n(591.75, TC_PERRY, "V*"),
     ghs: { value: ["H225", "H304", "H315", "H336", "H361d", "H373"], source: GHS, tag: "M" },
     dippr101: perry(76.945, -6729.8, -8.179, 5.3017e-6, 2, 178.18, 591.75),
@@ -85,9 +89,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(41.053, MM, "C"),
     densityGPerMl: n(0.786, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(81.6, FIRE, "V"),
-    flashPointC: n(2, `${FIRE}: 2–13 °C, sources differ (untagged there); the lowest is taken`, "S"),
-    autoignitionC: n(524, FIRE, "V"),
+    normalBoilingPointC: n(81.6, FIRE_V, "V"),
+    flashPointC: n(2, "published flash points range 2–13 °C (sources differ); the lowest is taken", "S"),
+    autoignitionC: n(524, FIRE_V, "V"),
     criticalTemperatureK: n(545.5, TC_PERRY, "V*"),
     ghs: { value: ["H225", "H302", "H312", "H332", "H319"], source: GHS, tag: "M" },
     dippr101: perry(46.735, -5126.18, -3.54064, 1.4e-17, 6, 229.32, 545.5),
@@ -102,7 +106,7 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(18.015, MM, "C"),
     densityGPerMl: n(0.998, DENS, "M"),
     thermalExpansionPerK: n(0.6e-3, EXP_WATER, "M"),
-    normalBoilingPointC: n(99.974, "IAPWS-IF97 region 4: Tsat(1.01325 bar), REFERENCE.md §1", "C"),
+    normalBoilingPointC: n(99.974, "IAPWS-IF97 region 4 (IAPWS R7-97(2012)): Tsat(1.01325 bar), computed", "C"),
     criticalTemperatureK: n(647.096, "IAPWS-IF97 critical temperature", "V*"),
     aqueous: true,
     protic: true,
@@ -118,9 +122,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(32.042, MM, "C"),
     densityGPerMl: n(0.791, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(64.7, FIRE, "V"),
-    flashPointC: n(11, FIRE, "V"),
-    autoignitionC: n(385, `${FIRE}: 385–464 °C, sources differ (untagged there); the lowest is taken`, "S"),
+    normalBoilingPointC: n(64.7, FIRE_V, "V"),
+    flashPointC: n(11, FIRE_V, "V"),
+    autoignitionC: n(385, "published autoignition temperatures range 385–464 °C (sources differ); the lowest is taken", "S"),
     criticalTemperatureK: n(512.5, TC_PERRY, "V*"),
     protic: true,
     ghs: { value: ["H225", "H301", "H311", "H331", "H370"], source: GHS, tag: "M" },
@@ -170,9 +174,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(74.123, MM, "C"),
     densityGPerMl: n(0.713, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(34.6, FIRE, "V"),
-    flashPointC: n(-45, FIRE, "V"),
-    autoignitionC: n(160, FIRE, "V"),
+    normalBoilingPointC: n(34.6, FIRE_V, "V"),
+    flashPointC: n(-45, FIRE_LCSS, "V"),
+    autoignitionC: n(160, FIRE_LCSS, "V"),
     criticalTemperatureK: n(466.7, TC_PERRY, "V*"),
     peroxideClass: { value: "B", source: PEROX, tag: "V" },
     ghs: { value: ["H224", "H302", "H336", "EUH019", "EUH066"], source: GHS, tag: "M" },
@@ -187,9 +191,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(88.106, MM, "C"),
     densityGPerMl: n(1.034, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(101.1, FIRE, "V"),
-    flashPointC: n(12, FIRE, "M"),
-    autoignitionC: n(180, FIRE, "M"),
+    normalBoilingPointC: n(101.1, FIRE_V, "V"),
+    flashPointC: n(12, FIRE_M, "M"),
+    autoignitionC: n(180, FIRE_M, "M"),
     criticalTemperatureK: n(587, TC_PERRY, "V*"),
     peroxideClass: { value: "B", source: PEROX, tag: "V" },
     ghs: { value: ["H225", "H319", "H335", "H351", "EUH019", "EUH066"], source: GHS, tag: "M" },
@@ -205,9 +209,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(78.13, MM, "C"),
     densityGPerMl: n(1.1, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(189, FIRE, "V"),
-    flashPointC: n(87, FIRE, "V"),
-    autoignitionC: n(215, FIRE, "V"),
+    normalBoilingPointC: n(189, FIRE_V, "V"),
+    flashPointC: n(87, FIRE_V, "V"),
+    autoignitionC: n(215, FIRE_V, "V"),
     criticalTemperatureK: n(729, TC_PERRY, "V*"),
     ghs: { value: [], source: GHS, tag: "M" },
     dippr101: perry(56.273, -7620.6, -4.6279, 4.3819e-7, 2, 291.67, 729),
@@ -221,9 +225,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(73.095, MM, "C"),
     densityGPerMl: n(0.944, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(153, FIRE, "V"),
-    flashPointC: n(58, FIRE, "V"),
-    autoignitionC: n(445, FIRE, "V"),
+    normalBoilingPointC: n(153, FIRE_V, "V"),
+    flashPointC: n(58, FIRE_V, "V"),
+    autoignitionC: n(445, FIRE_V, "V"),
     criticalTemperatureK: n(649.6, TC_PERRY, "V*"),
     ghs: { value: ["H226", "H312", "H332", "H319", "H360D"], source: GHS, tag: "M" },
     dippr101: perry(82.762, -7955.5, -8.8038, 4.2431e-6, 2, 212.72, 649.6),
@@ -266,9 +270,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(100.205, MM, "C"),
     densityGPerMl: n(0.684, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(98.4, FIRE, "M"),
-    flashPointC: n(-4, FIRE, "M"),
-    autoignitionC: n(204, FIRE, "M"),
+    normalBoilingPointC: n(98.4, FIRE_M, "M"),
+    flashPointC: n(-4, FIRE_M, "M"),
+    autoignitionC: n(204, FIRE_M, "M"),
     criticalTemperatureK: n(540.2, TC_PERRY, "V*"),
     ghs: { value: ["H225", "H304", "H315", "H336", "H410"], source: GHS, tag: "M" },
     dippr101: perry(87.829, -6996.4, -9.8802, 7.2099e-6, 2, 182.57, 540.2),
@@ -283,9 +287,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(86.178, MM, "C"),
     densityGPerMl: n(0.659, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(69, FIRE, "V"),
-    flashPointC: n(-22, FIRE, "V"),
-    autoignitionC: n(225, FIRE, "V"),
+    normalBoilingPointC: n(69, FIRE_V, "V"),
+    flashPointC: n(-22, FIRE_V, "V"),
+    autoignitionC: n(225, FIRE_V, "V"),
     criticalTemperatureK: n(507.6, TC_PERRY, "V*"),
     ghs: { value: ["H225", "H304", "H315", "H336", "H361f", "H373", "H411"], source: GHS, tag: "M" },
     dippr101: perry(104.65, -6995.5, -12.702, 1.2381e-5, 2, 177.83, 507.6),
@@ -315,9 +319,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(60.096, MM, "C"),
     densityGPerMl: n(0.785, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(82.3, FIRE, "M"),
-    flashPointC: n(12, FIRE, "M"),
-    autoignitionC: n(399, FIRE, "M"),
+    normalBoilingPointC: n(82.3, FIRE_M, "M"),
+    flashPointC: n(12, FIRE_M, "M"),
+    autoignitionC: n(399, FIRE_M, "M"),
     criticalTemperatureK: n(508.3, TC_PERRY, "V*"),
     peroxideClass: { value: "B", source: `${PEROX} (secondary alcohols)`, tag: "V" },
     protic: true,
@@ -398,9 +402,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(90.122, MM, "C"),
     densityGPerMl: n(0.868, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(85, FIRE, "M"),
-    flashPointC: n(-2, FIRE, "M"),
-    autoignitionC: n(202, FIRE, "M"),
+    normalBoilingPointC: n(85, FIRE_M, "M"),
+    flashPointC: n(-2, FIRE_M, "M"),
+    autoignitionC: n(202, FIRE_M, "M"),
     criticalTemperatureK: n(536, MEM, "M"),
     peroxideClass: { value: "B", source: PEROX, tag: "V" },
     ghs: { value: ["H225", "H332", "H360FD", "EUH019"], source: GHS, tag: "M" },
@@ -414,9 +418,9 @@ const RECORDS: SolventRecordInput[] = [
     molarMassGPerMol: n(86.134, MM, "C"),
     densityGPerMl: n(0.854, DENS, "M"),
     thermalExpansionPerK: organicExpansion,
-    normalBoilingPointC: n(80.2, FIRE, "V*"),
-    flashPointC: n(-11, FIRE, "M"),
-    autoignitionC: n(270, `${FIRE}: ≈270 °C`, "M"),
+    normalBoilingPointC: n(80.2, "a published boiling point checked through a third-party copy only", "V*"),
+    flashPointC: n(-11, FIRE_M, "M"),
+    autoignitionC: n(270, `${FIRE_M}: ≈270 °C`, "M"),
     criticalTemperatureK: n(537, MEM, "M"),
     peroxideClass: { value: "B", source: `${PEROX}: treated as class B (common practice)`, tag: "CP" },
     ghs: { value: ["H225", "H302", "H315", "H318", "EUH019"], source: GHS, tag: "M" },
@@ -426,7 +430,7 @@ const RECORDS: SolventRecordInput[] = [
       c: -55.35,
       tminK: null,
       tmaxK: null,
-      source: "REFERENCE.md §1: a secondary source (not NIST), valid range unknown",
+      source: "a secondary compilation of Antoine parameters (not NIST; not checked against a primary source), valid range unknown",
       tag: "S",
     },
   },

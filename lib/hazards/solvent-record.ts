@@ -1,10 +1,11 @@
 /**
  * The shape of one solvent's data. Every value carries its source and a tag saying how
- * far it was checked (../shared/REFERENCE.md's tags), so a page can show where a number
+ * far it was checked (the tags below; docs/sources.md), so a page can show where a number
  * comes from. Tareline ships a set of records (`solvent-data.ts`); a lab adds its own
  * with the same schema (tag "lab", with the lab's own citation).
  */
 import { z } from "zod";
+import { ghsStatementSchema, peroxideClassSchema } from "./hazard-flags";
 
 /**
  * How far a value was checked: V checked against the primary source; V* only through a
@@ -27,8 +28,6 @@ function sourced(value: z.ZodNumber) {
 }
 export type SourcedNumber = z.output<typeof sourcedNumberSchema>;
 
-export const peroxideClassSchema = z.enum(["A", "B", "C", "D"]);
-export type PeroxideClass = z.output<typeof peroxideClassSchema>;
 
 /** DIPPR equation 101: ln(P/Pa) = C1 + C2/T + C3·ln T + C4·T^C5, T in K, valid tminK–tmaxK. */
 export const dippr101Schema = z
@@ -91,7 +90,7 @@ export const solventRecordSchema = z.object({
     .default(null),
   /** GHS hazard statements of the neat solvent, e.g. ["H225", "EUH019"]. */
   ghs: z
-    .object({ value: z.array(z.string().regex(/^(EU)?H\d{3}[A-Za-z]{0,2}$/, "not a GHS hazard statement")), ...citation })
+    .object({ value: z.array(ghsStatementSchema), ...citation })
     .default({ value: [], source: "none given", tag: "lab" }),
   /** Water itself or an aqueous solution. */
   aqueous: z.boolean().default(false),

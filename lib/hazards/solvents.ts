@@ -20,6 +20,8 @@ export function solventKey(name: string): string {
 /** A set of solvent records with an index by every name it answers to. */
 export class SolventCatalogue {
   private readonly index = new Map<string, SolventRecord>();
+  /** Names as given, already looked up (the same few names are asked for again and again). */
+  private readonly asked = new Map<string, SolventRecord | undefined>();
   readonly records: readonly SolventRecord[];
 
   constructor(records: readonly SolventRecord[]) {
@@ -34,7 +36,10 @@ export class SolventCatalogue {
 
   /** The record a name, synonym or CAS number refers to, or undefined. */
   find(nameOrCas: string): SolventRecord | undefined {
-    return this.index.get(solventKey(nameOrCas));
+    if (this.asked.has(nameOrCas)) return this.asked.get(nameOrCas);
+    const r = this.index.get(solventKey(nameOrCas));
+    if (this.asked.size < 10000) this.asked.set(nameOrCas, r);
+    return r;
   }
 
   /**

@@ -1,36 +1,42 @@
 /**
  * A lab's hazard thresholds and its equipment limits: the settings the safety officer
  * edits (every change audited by the app). Every field has a default, so
- * `labThresholdsSchema.parse({})` gives a complete, usable set.
- *
- * Sources of the defaults (../shared/REFERENCE.md):
- * - safety factor 0.5 of the vessel rating: "keep the estimate ≤ ~50 % of the rating"
- *   (§2, common practice);
+ * `labThresholdsSchema.parse({})` gives a complete, usable set. Sources of the defaults
+ * (docs/sources.md lists them all):
+ * - safety factor 0.5 of the vessel rating: keep the estimated pressure at or below
+ *   about half the rating (common practice, no published source);
  * - peroxide test intervals after opening: class A 3 months, class B 12 months,
- *   unopened 18 months (§3, after Prudent Practices in the Laboratory, NRC 2011);
- *   classes C and D have no fixed interval there: 12 months is our common-practice default;
- * - second-person volume: "syringe transfers ≤ about 10–20 mL" (§4, common practice);
+ *   unopened 18 months or the expiry date (Prudent Practices in the Laboratory, National
+ *   Research Council, 2011, chapter 4); classes C and D have no fixed interval there:
+ *   12 months is Tareline's common-practice default;
+ * - second-person volume 10 mL: syringe transfers of pyrophoric reagents up to about
+ *   10–20 mL, larger ones by cannula (common practice);
  * - sign-off temperature, autoignition margin and the block/cooling limits are
- *   Tareline's own conservative defaults (common practice, §2 "Aluminium heating blocks:
- *   150 °C routine"; dry ice/acetone −78 °C); the lab must set its own.
+ *   Tareline's own conservative defaults (common practice: aluminium heating blocks
+ *   150 °C routine; dry ice/acetone −78 °C); the lab must set its own.
  */
 import { z } from "zod";
 
-/** Peroxide test/discard intervals in months, per peroxide-former class. */
+const months = () => z.number().int("a whole number of calendar months").min(1).max(120);
+
+/** Peroxide test/discard intervals in whole calendar months, per peroxide-former class. */
 export const peroxideIntervalsSchema = z
   .object({
-    /** Class A: explosive peroxides without concentration — 3 months after opening (REFERENCE §3). */
-    A: z.number().positive().max(120).default(3),
-    /** Class B: hazardous on concentration — 12 months after opening (REFERENCE §3). */
-    B: z.number().positive().max(120).default(12),
+    /** Class A: explosive peroxides without concentration — 3 months after opening (Prudent Practices, 2011). */
+    A: months().default(3),
+    /** Class B: hazardous on concentration — 12 months after opening (Prudent Practices, 2011). */
+    B: months().default(12),
     /** Class C: peroxide-initiated polymerisation — 12 months (Tareline default, common practice). */
-    C: z.number().positive().max(120).default(12),
+    C: months().default(12),
     /** Class D: may form peroxides — 12 months (Tareline default, common practice). */
-    D: z.number().positive().max(120).default(12),
-    /** Unopened containers of any class: 18 months (REFERENCE §3) or the expiry date. */
-    unopened: z.number().positive().max(120).default(18),
+    D: months().default(12),
+    /** Unopened containers of any class: 18 months or the expiry date (Prudent Practices, 2011). */
+    unopened: months().default(18),
   })
   .prefault({});
+
+/** The peroxide test intervals, fully defaulted. */
+export type PeroxideIntervals = z.output<typeof peroxideIntervalsSchema>;
 
 export const labThresholdsSchema = z
   .object({
@@ -61,7 +67,7 @@ export const DEFAULT_LAB_THRESHOLDS: LabThresholds = labThresholdsSchema.parse({
 /** Limits of the lab's heating block and cooling method (°C). */
 export const equipmentSchema = z
   .object({
-    /** Highest set point of the heating block (REFERENCE §2: aluminium blocks 150 °C routine). */
+    /** Highest set point of the heating block (common practice: aluminium blocks 150 °C routine). */
     blockMaxC: z.number().min(-273.15).max(1000).default(150),
     /** Lowest temperature the cooling method reaches (dry ice/acetone, −78 °C). */
     coolingMinC: z.number().min(-273.15).max(1000).default(-78),
@@ -77,7 +83,7 @@ export type Equipment = z.output<typeof equipmentSchema>;
 /** The default equipment limits. */
 export const DEFAULT_EQUIPMENT: Equipment = equipmentSchema.parse({});
 
-/** Positions of a heating or cooling block (REFERENCE.md §5 block formats: 24, 48 or 96 vials). */
+/** Positions of a heating or cooling block: the usual formats of 24, 48 or 96 vials (common practice). */
 export const BLOCK_POSITIONS = [24, 48, 96] as const;
 
 /** The block a plan runs on (its temperature limits are the plan's `equipment`). */

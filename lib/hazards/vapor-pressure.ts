@@ -1,7 +1,7 @@
 /**
  * Vapour pressure of a pure solvent and of an ideal solvent mixture.
  *
- * Methods, in order of preference (../shared/REFERENCE.md §1):
+ * Methods, in order of preference (sources in docs/sources.md):
  * 1. water: IAPWS-IF97 region-4 saturation line;
  * 2. DIPPR equation 101 (Perry's Handbook, 8th ed., Table 2-8) inside its range;
  * 3. Antoine, NIST form, inside its range;
@@ -22,7 +22,7 @@ export type VaporMethod = "DIPPR-101" | "Antoine" | "IAPWS-IF97" | "estimate";
 export const ATM_BAR = 1.01325;
 /** Molar gas constant (J/(mol·K)), CODATA. */
 export const R_J_PER_MOL_K = 8.314462618;
-/** Trouton's rule constant (J/(mol·K)), REFERENCE.md §1. */
+/** Trouton's rule constant (J/(mol·K)): ΔSvap ≈ 88 J/(mol·K) at the normal boiling point (Trouton, 1884; e.g. Atkins' Physical Chemistry). */
 export const TROUTON_J_PER_MOL_K = 88;
 const ZERO_C_IN_K = 273.15;
 
@@ -43,19 +43,31 @@ export interface VaporPressureResult {
 
 interface Candidate {
   method: Exclude<VaporMethod, "estimate">;
-  inRange: boolean;
   range: [number, number] | null;
   source: string;
   tag: SourceTag;
   bar: (t: number) => number;
 }
 
-function candidates(r: SolventRecord, t: number): Candidate[] {
+const candidateCache = new WeakMap<SolventRecord, Candidate[]>();
+
+/** A record's correlations in order of preference (built once per record). */
+function candidates(r: SolventRecord): Candidate[] {
+  let out = candidateCache.get(r);
+  if (!out) {
+    out = buildCandidates(r);
+    candidateCache.set(r, out);
+  }
+  return out;
+}
+
+const inRangeOf = (c: Candidate, t: number): boolean => c.range !== null && t >= c.range[0] && t <= c.range[1];
+
+function buildCandidates(r: SolventRecord): Candidate[] {
   const out: Candidate[] = [];
   if (r.iapwsIf97) {
     out.push({
       method: "IAPWS-IF97",
-      inRange: t >= IF97_TMIN_K && t <= IF97_TMAX_K,
       range: [IF97_TMIN_K, IF97_TMAX_K],
       source: "IAPWS-IF97 region 4 saturation equation (eq. 30)",
       tag: "C",
@@ -66,7 +78,6 @@ function candidates(r: SolventRecord, t: number): Candidate[] {
   if (d) {
     out.push({
       method: "DIPPR-101",
-      inRange: t >= d.tminK && t <= d.tmaxK,
       range: [d.tminK, d.tmaxK],
       source: d.source,
       tag: d.tag,
@@ -78,7 +89,6 @@ function candidates(r: SolventRecord, t: number): Candidate[] {
     const known = a.tminK !== null && a.tmaxK !== null;
     out.push({
       method: "Antoine",
-      inRange: known && t >= (a.tminK ?? 0) && t <= (a.tmaxK ?? 0),
       range: known ? [a.tminK ?? 0, a.tmaxK ?? 0] : null,
       source: a.source,
       tag: a.tag,
@@ -118,15 +128,15 @@ export function solventVaporPressure(r: SolventRecord, temperatureK: number, pat
       `${(temperatureK - ZERO_C_IN_K).toFixed(1)} °C is above the critical temperature of ${r.name} (${(tc - ZERO_C_IN_K).toFixed(1)} °C): no vapour pressure exists there`,
     );
   }
-  const list = candidates(r, temperatureK);
-  const chosen = list.find((c) => c.inRange) ?? list[0];
+  const list = candidates(r);
+  const chosen = list.find((c) => inRangeOf(c, temperatureK)) ?? list[0];
   if (chosen) {
     return {
       bar: chosen.bar(temperatureK),
       method: chosen.method,
       source: chosen.source,
       tag: chosen.tag,
-      inRange: chosen.inRange,
+      inRange: inRangeOf(chosen, temperatureK),
       validRangeK: chosen.range,
       solvent: r.name,
     };

@@ -1,6 +1,6 @@
 /**
  * The `vessel-pressure` calculation as the command line and the app call it
- * (../shared/CONTRACT.md): one sealed vessel, its solvent system, temperatures and
+ * (the README's `vessel-pressure` verb): one sealed vessel, its solvent system, temperatures and
  * volumes in; the pressure parts, the hot fill fraction and the cautions out.
  */
 import { z } from "zod";
@@ -29,7 +29,7 @@ export const vesselPressureInputSchema = z
     ratedBar: z.number().positive().max(1000).optional(),
     /** Fraction of the rating allowed (default: the lab default, 0.5). */
     safetyFactor: z.number().gt(0).max(1).default(DEFAULT_LAB_THRESHOLDS.safetyFactor),
-    /** Largest allowed liquid fraction of the vessel (default ⅔, REFERENCE.md §2 [CP]). */
+    /** Largest allowed liquid fraction of the vessel (default ⅔, common practice). */
     maxFillFraction: z.number().gt(0).max(1).default(2 / 3),
     autoignitionMarginC: z.number().min(0).max(500).default(DEFAULT_LAB_THRESHOLDS.autoignitionMarginC),
     labSolvents: z.array(solventRecordSchema).max(500).optional(),
@@ -68,7 +68,7 @@ export interface VesselPressureOutput {
 }
 
 /**
- * Pressure in one sealed vessel by the model of REFERENCE.md §2 (Raoult vapour
+ * Pressure in one sealed vessel by the model of sealed-vessel.ts (Raoult vapour
  * pressure + headspace air at constant volume with liquid expansion + declared gas
  * n·R·T/V), compared with rating × safety factor; with the vessel and fire cautions.
  * @throws AppError invalid_input with paths (`solvents.0.name`, `solvents`,

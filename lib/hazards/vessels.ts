@@ -1,8 +1,8 @@
 /**
  * Vessel types: volume, working-volume range, pressure rating and maximum fill.
  *
- * The defaults come from ../shared/REFERENCE.md §2 and §5 (from memory and common
- * practice, not from any maker's data sheet) and are all flagged
+ * The defaults are from memory and common practice (docs/sources.md), not from any
+ * maker's data sheet, and are all flagged
  * `confirmWithSupplier: true`: a lab must confirm the rating of the vessels it buys,
  * and can add its own types with the same schema.
  */
@@ -42,10 +42,10 @@ export const vesselTypeSchema = vesselTypeObjectSchema.superRefine((v, ctx) => {
 
 export type VesselType = z.output<typeof vesselTypeSchema>;
 
-const SCREW = "REFERENCE.md §2 [M/CP]: screw-cap septum vials are not pressure-rated by their makers; treat as ≈2–3 bar absolute. Working range from §5 block formats [CP].";
+const SCREW = "Common practice, from memory: screw-cap septum vials are not pressure-rated by their makers; treat as ≈2–3 bar absolute. Working range from the usual block formats (common practice).";
 
 /**
- * Default vessel types (REFERENCE.md §2, §5; from memory / common practice). Every one
+ * Default vessel types (from memory / common practice). Every one
  * is flagged "confirm with your supplier".
  */
 export const DEFAULT_VESSELS: readonly VesselType[] = [
@@ -108,7 +108,7 @@ export const DEFAULT_VESSELS: readonly VesselType[] = [
     sealed: true,
     confirmWithSupplier: true,
     source:
-      "REFERENCE.md §2 [M]: crimp-cap microwave vials typically 20 bar (some 30); stay inside the stated working volume. Total volume 10 mL from memory.",
+      "From memory: crimp-cap microwave vials are typically rated 20 bar (some 30); stay inside the stated working volume. Total volume 10 mL from memory.",
   },
   {
     id: "tube-15ml-pressure-ptfe",
@@ -121,7 +121,7 @@ export const DEFAULT_VESSELS: readonly VesselType[] = [
     sealed: true,
     confirmWithSupplier: true,
     source:
-      "REFERENCE.md §2 [M]: heavy-wall pressure tubes typically 4–10 bar at ≤120 °C; the lower end is taken. Fill ≤ ½–⅔ [CP].",
+      "From memory: heavy-wall pressure tubes are typically rated 4–10 bar at ≤120 °C; the lower end is taken. Fill ≤ ½–⅔ (common practice).",
   },
   {
     id: "flask-25ml-vented",

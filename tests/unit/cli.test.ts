@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
 
-// The command line's outer contract (../shared/CONTRACT.md): exit codes and the error shape.
+// The command line's outer contract (the README): exit codes and the error shape.
 function cli(args: string[], input: string) {
   const r = spawnSync("node_modules/.bin/tsx", ["lib/cli/main.ts", ...args], { input, encoding: "utf8" });
   return { status: r.status, body: JSON.parse(r.stdout) as { error?: { message: string; issues: { path: string }[] } } };

@@ -1,4 +1,4 @@
-/** The `design` verb (CONTRACT.md): a design input in, the runs of the design out. */
+/** The `design` verb (the README): a design input in, the runs of the design out. */
 import { generateDesign } from "../../doe";
 
 export function run(input: unknown): unknown {

@@ -1,4 +1,4 @@
-/** The `fit` verb (CONTRACT.md): runs and a model in, estimates, ANOVA, diagnostics and the canonical analysis out. */
+/** The `fit` verb (the README): runs and a model in, estimates, ANOVA, diagnostics and the canonical analysis out. */
 import { fitResponseSurface } from "../../surface";
 
 export function run(input: unknown): unknown {

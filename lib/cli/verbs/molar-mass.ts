@@ -1,6 +1,6 @@
 /**
  * `cli molar-mass`: `{ "formula": "C9H11Br" }` or `{ "smiles": "CC(C)c1ccc(Br)cc1" }` →
- * `{ formula, gPerMol, monoisotopic, … }` (../shared/CONTRACT.md), IUPAC 2021 standard
+ * `{ formula, gPerMol, monoisotopic, … }` (the README), IUPAC 2021 standard
  * atomic weights. A SMILES string is turned into its formula by openchemlib first.
  */
 import { parseOrThrow } from "../../errors/app-error";

@@ -1,4 +1,4 @@
-/** The `optimize` verb (CONTRACT.md): the fit input plus a goal and region in, the best conditions out. */
+/** The `optimize` verb (the README): the fit input plus a goal and region in, the best conditions out. */
 import { optimizeResponse } from "../../surface";
 
 export function run(input: unknown): unknown {

@@ -1,5 +1,5 @@
 /**
- * `vapor-pressure` verb (../shared/CONTRACT.md): `{ "solvent": "tetrahydrofuran",
+ * `vapor-pressure` verb (the README): `{ "solvent": "tetrahydrofuran",
  * "temperatureC": 120 }` (name, synonym or CAS number; optional `labSolvents`) →
  * `{ bar, method, source, inRange, … }`.
  */

@@ -1,5 +1,5 @@
 /**
- * `vessel-pressure` verb (../shared/CONTRACT.md): solvent system, temperatures and
+ * `vessel-pressure` verb (the README): solvent system, temperatures and
  * volumes of one sealed vessel in; `totalBar`, `vaporBar`, `airBar`, `gasBar`,
  * `fillFractionHot` and `cautions` out (absolute pressures).
  */

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 
-// The `plan` and `molar-mass` verbs through the real command line (../shared/CONTRACT.md:
+// The `plan` and `molar-mass` verbs through the real command line (the README's contract:
 // exit 0 success, exit 2 invalid input with `{"error":{"message","issues":[{path,message}]}}`).
 interface Body {
   error?: { message: string; issues: Array<{ path: string; message: string }> };

@@ -6,7 +6,7 @@ import { buildRunSheet } from "@/lib/chemistry/run-sheet";
 import { screeningPlan, suzukiPlan } from "./fixtures";
 import { deliveredMmol, expectNoBadNumbers, expectStockInvariants } from "./invariants";
 
-// Stock and master-mix planning (issue 4; REFERENCE.md §5 for the liquid-handling
+// Stock and master-mix planning (issue 4; common practice (docs/sources.md) for the liquid-handling
 // practice: minimum pipettable volume, overage, minimum weighing mass — common practice).
 
 function smallScreen() {
@@ -144,7 +144,7 @@ describe("master mixes and premixes", () => {
 });
 
 describe("incompatible components", () => {
-  // n-BuLi: H225, H250, H261, H314 (REFERENCE.md §4, from memory); methanol is protic.
+  // n-BuLi: H225, H250, H261, H314 (typical statements, from memory); methanol is protic.
   function buliPlan(dispense: "auto" | "stock" = "auto") {
     return {
       recipe: {
@@ -203,7 +203,7 @@ describe("incompatible components", () => {
 describe("weighing and pipetting limits", () => {
   it("raises a stock's volume so the weighed mass reaches the minimum weighing mass, or says it cannot", () => {
     const plan = smallScreen();
-    plan.dispensing = { ...plan.dispensing, minWeighMassMg: 82 }; // 4-place balance, USP ⟨41⟩ (REFERENCE §5, from memory)
+    plan.dispensing = { ...plan.dispensing, minWeighMassMg: 82 }; // 4-place balance, USP ⟨41⟩ (from memory)
     const doc = planDocumentSchema.parse(plan);
     const sheet = buildRunSheet(doc);
     for (const s of sheet.stocks) {

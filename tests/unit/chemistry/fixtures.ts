@@ -1,6 +1,6 @@
 /**
  * Plan documents for the chemistry tests: an invented Suzuki–Miyaura screen (the demo
- * scenario of PRODUCT.md) whose numbers are chosen for easy hand arithmetic.
+ * scenario of the README) whose numbers are chosen for easy hand arithmetic.
  */
 import type { PlanDocumentInput } from "@/lib/chemistry/plan-document";
 
@@ -106,7 +106,7 @@ export function screeningPlan(): PlanDocumentInput {
   const runs = coded.map((x, i) => ({
     standardOrder: i + 1,
     runOrder: ((i * 7) % 10) + 1,
-    pointType: i < 8 ? "factorial" : "center",
+    kind: i < 8 ? "factorial" : "center",
     coded: Object.fromEntries(names.map((n, j) => [n, x[j]!])),
   }));
   return suzukiPlan({ factors, design: { runs } });

@@ -40,24 +40,26 @@ describe("impossible plans", () => {
     expect(e.issues[0]?.path).toBe("recipe.scaleMmol");
   });
 
-  it("an axial point that makes a loading negative names the factor, component and run", () => {
+  it("a given run whose coded value makes a loading negative is refused at that run's field", () => {
     // pdLoading 0.5–2 mol %: u0 = 1.25, Δu = 0.75; coded −2 → 1.25 − 1.5 = −0.25 mol % (computed here)
     const plan = screeningPlan();
     const runs = plan.design.runs as Array<{ standardOrder: number; coded?: Record<string, number> }>;
     runs.push({ standardOrder: 11, coded: { temperature: 0, baseEquiv: 0, pdLoading: -2, waterFraction: 0 } });
     const e = errorOf(() => buildRunSheet(plan));
-    expect(e.code).toBe("infeasible");
-    expect(e.message).toMatch(/factor "pdLoading" gives a pd loading \(mol % metal\) of -0.25 \(not positive\) in runs 11/);
-    expect(e.issues[0]?.message).toMatch(/^pd: /);
+    expect(e.code).toBe("invalid_input");
+    expect(e.issues.map((i) => i.path)).toEqual(["design.runs.10.coded.pdLoading"]);
+    expect(e.issues[0]?.message).toMatch(/factor "pdLoading" gives a pd loading \(mol % metal\) of -0.25 \(not positive\)/);
+    expect(e.issues[0]?.message).toMatch(/\(run 11\)$/);
   });
 
-  it("a co-solvent fraction above 1 is refused with the runs", () => {
+  it("a co-solvent fraction above 1 in a given run is refused at that run's field", () => {
     const plan = screeningPlan();
     const runs = plan.design.runs as Array<{ standardOrder: number; natural?: Record<string, number> }>;
     runs.push({ standardOrder: 12, natural: { temperature: 80, baseEquiv: 2, pdLoading: 1, waterFraction: 120 } });
     const e = errorOf(() => buildRunSheet(plan));
-    expect(e.code).toBe("infeasible");
-    expect(e.message).toMatch(/water volume fraction of 1.2 \(outside 0–1\) in runs 12/);
+    expect(e.code).toBe("invalid_input");
+    expect(e.issues.map((i) => i.path)).toEqual(["design.runs.10.natural.waterFraction"]);
+    expect(e.issues[0]?.message).toMatch(/water volume fraction of 1.2 \(outside 0–1\)/);
   });
 
   it("neat liquids that exceed the final volume name the components and runs", () => {

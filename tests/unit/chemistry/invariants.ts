@@ -46,7 +46,7 @@ export function deliveredMmol(doc: PlanDocument, sheet: RunSheet, runIndex: numb
   return out;
 }
 
-/** Decodes a coded value linearly (PRODUCT.md: u = u0 + x·Δu), computed here independently. */
+/** Decodes a coded value linearly (u = u0 + x·Δu, Montgomery §6.2), computed here independently. */
 function decode(low: number, high: number, x: number, scale: string): number {
   if (scale === "log") return Math.exp((Math.log(high) + Math.log(low)) / 2 + (x * (Math.log(high) - Math.log(low))) / 2);
   return (high + low) / 2 + (x * (high - low)) / 2;

@@ -48,9 +48,9 @@ describe("molar mass from a formula (IUPAC 2021 standard atomic weights)", () =>
     });
   }
 
-  it("gives the CONTRACT.md example C9H11Br → 199.09 g/mol, 198.0044 monoisotopic", () => {
+  it("gives the README's example C9H11Br → 199.09 g/mol, 198.0044 monoisotopic", () => {
     const r = molarMass({ formula: "C9H11Br" });
-    expect(r.gPerMol).toBeCloseTo(199.09, 2); // CONTRACT.md molar-mass example
+    expect(r.gPerMol).toBeCloseTo(199.09, 2); // the README's molar-mass example
     // Monoisotopic, computed in this test from the AME isotope masses (from memory):
     // 9·12 + 11·1.00782503223 + 78.9183376 (⁷⁹Br) = 198.00441295
     expect(r.monoisotopic).toBeCloseTo(9 * 12 + 11 * 1.00782503223 + 78.9183376, 6);

@@ -6,10 +6,10 @@ import { planReport } from "@/lib/chemistry/plan-report";
 import { buildRunSheet } from "@/lib/chemistry/run-sheet";
 
 // The plan verb's output joins the run sheet with the hazard engine's cautions
-// (interfaces.md): the recipe's hazard flags must reach evaluatePlanCautions.
+// (docs/chemistry.md): the recipe's hazard flags must reach evaluatePlanCautions.
 describe("plan report: run sheet + cautions", () => {
   it("passes a pyrophoric reagent and an aqueous co-solvent to the hazard rules (blocks release, needs sign-off)", () => {
-    // n-BuLi: H225, H250, H261, H314 (REFERENCE.md §4, from memory); PRODUCT.md "Cautions":
+    // n-BuLi: H225, H250, H261, H314 (typical statements, from memory); the product's caution rules:
     // a pyrophoric or water-reactive reagent with an aqueous solvent in the same vial blocks release.
     const r = planReport({
       recipe: {
@@ -46,7 +46,7 @@ describe("plan report: run sheet + cautions", () => {
     expect(r.runs[0]!.components.find((c) => c.id === "buli")!.volumeUl).toBeCloseTo(220, 9);
   });
 
-  it("groups the generated runs by temperature (a heating block per temperature, PRODUCT.md step 3)", () => {
+  it("groups the generated runs by temperature (a heating block per temperature, the product's design step)", () => {
     const r = planReport(JSON.parse(readFileSync("examples/plan-suzuki.json", "utf8")));
     const inRunOrder = [...r.runs].sort((a, b) => a.runOrder - b.runOrder).map((x) => x.temperatureC);
     // Each temperature appears as one contiguous stretch of the run order.

@@ -28,7 +28,7 @@ describe("full factorial in Yates order", () => {
   it("repeats the whole list for replicates, centre points after the factorial part", () => {
     const d = generateDesign({ factors: factors(2), design: "full-factorial", centerPoints: 2, replicates: 2, randomize: false });
     expect(d.runs.length).toBe(12); // (4 + 2) × 2, CONTRACT.md "replicates repeat the whole list"
-    expect(d.runs.map((r) => r.pointType).slice(0, 6)).toEqual(["factorial", "factorial", "factorial", "factorial", "center", "center"]);
+    expect(d.runs.map((r) => r.kind).slice(0, 6)).toEqual(["factorial", "factorial", "factorial", "factorial", "center", "center"]);
     expect(codedMatrix(d).slice(6)).toEqual(codedMatrix(d).slice(0, 6));
     expect(d.runs.map((r) => r.standardOrder)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12]);
   });
@@ -140,7 +140,7 @@ describe("central composite designs", () => {
     const d = generateDesign({ factors: factors(2), design: "central-composite", centerPoints: 1, randomize: false });
     const a = d.alpha!;
     expect(codedMatrix(d).slice(4)).toEqual([[-a, 0], [a, 0], [0, -a], [0, a], [0, 0]]);
-    expect(d.runs.slice(4).map((r) => r.pointType)).toEqual(["axial", "axial", "axial", "axial", "center"]);
+    expect(d.runs.slice(4).map((r) => r.kind)).toEqual(["axial", "axial", "axial", "axial", "center"]);
   });
   it("spherical α = √k, face-centred α = 1, numeric α as given", () => {
     expect(generateDesign({ factors: factors(3), design: "central-composite", alpha: "spherical" }).alpha).toBeCloseTo(Math.sqrt(3), 14);
@@ -149,10 +149,10 @@ describe("central composite designs", () => {
   });
   it("inscribed designs put the axial points at the natural limits (CONTRACT.md)", () => {
     const d = generateDesign({ factors: factors(2), design: "central-composite", placement: "inscribed", randomize: false });
-    const axial = d.runs.filter((r) => r.pointType === "axial");
+    const axial = d.runs.filter((r) => r.kind === "axial");
     expect(axial[0]!.natural.x1).toBeCloseTo(0, 12); // low of x1
     expect(axial[1]!.natural.x1).toBeCloseTo(20, 12); // high of x1
-    const fact = d.runs.filter((r) => r.pointType === "factorial");
+    const fact = d.runs.filter((r) => r.kind === "factorial");
     expect(Math.abs(fact[0]!.coded.x1!)).toBeCloseTo(1 / Math.SQRT2, 12); // ±1/α
   });
   it("augments an existing 2² factorial with axial and centre runs in block 2", () => {
@@ -169,9 +169,9 @@ describe("central composite designs", () => {
   });
   it("two blocks: factorial part in block 1, axial part in block 2, centre points shared", () => {
     const d = generateDesign({ factors: factors(3), design: "central-composite", blocks: 2, centerPoints: 4, randomize: false });
-    expect(d.runs.filter((r) => r.pointType === "axial").every((r) => r.block === 2)).toBe(true);
-    expect(d.runs.filter((r) => r.pointType === "factorial").every((r) => r.block === 1)).toBe(true);
-    expect(d.runs.filter((r) => r.pointType === "center").map((r) => r.block)).toEqual([1, 2, 1, 2]);
+    expect(d.runs.filter((r) => r.kind === "axial").every((r) => r.block === 2)).toBe(true);
+    expect(d.runs.filter((r) => r.kind === "factorial").every((r) => r.block === 1)).toBe(true);
+    expect(d.runs.filter((r) => r.kind === "center").map((r) => r.block)).toEqual([1, 2, 1, 2]);
   });
 });
 
@@ -219,9 +219,9 @@ describe("blocks and hard-to-change factors", () => {
 describe("log-scale factors in designs", () => {
   it("puts the centre at the geometric mean and axial points at exp(u0 ± α·Δu)", () => {
     const d = generateDesign({ factors: [{ name: "loading", low: 0.5, high: 2, scale: "log" }, { name: "t", low: 0, high: 1 }], design: "central-composite", randomize: false, centerPoints: 1 });
-    const centre = d.runs.find((r) => r.pointType === "center")!;
+    const centre = d.runs.find((r) => r.kind === "center")!;
     expect(centre.natural.loading).toBeCloseTo(1, 12); // √(0.5·2), computed by hand
-    const ax = d.runs.filter((r) => r.pointType === "axial")[0]!;
+    const ax = d.runs.filter((r) => r.kind === "axial")[0]!;
     expect(ax.natural.loading).toBeCloseTo(Math.exp(-Math.SQRT2 * Math.log(2)), 12); // ln-coding, Δ = ln 2
   });
 });

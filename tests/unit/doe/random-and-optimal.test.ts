@@ -53,7 +53,7 @@ describe("D-optimal designs by Fedorov exchange", () => {
     for (const r of d.runs) {
       expect(r.natural.temperature! + 10 * r.natural.time!).toBeLessThanOrEqual(150 + 1e-9);
       expect(r.natural.temperature! - 5 * r.natural.equiv!).toBeGreaterThanOrEqual(55 - 1e-9);
-      expect(r.pointType).toBe("optimal");
+      expect(r.kind).toBe("optimal");
     }
     expect(d.dOptimal!.candidatesRemoved).toBeGreaterThan(0);
     expect(d.dOptimal!.candidates + d.dOptimal!.candidatesRemoved).toBe(27); // 3^3 grid

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
 
-// The command line contract (../shared/CONTRACT.md "vapor-pressure", "vessel-pressure"):
+// The command line contract (README: "vapor-pressure", "vessel-pressure"):
 // exit 0 with the documented fields; exit 2 with {"error":{message, issues:[{path}]}}.
 interface Body {
   error?: { message: string; issues: { path: string; message: string }[] };
@@ -13,7 +13,7 @@ function cli(verb: string, input: unknown) {
 }
 
 describe("vapor-pressure verb", () => {
-  it("answers THF at 120 °C with 4.437 bar by DIPPR-101 (REFERENCE.md §1 Perry's check value)", () => {
+  it("answers THF at 120 °C with 4.437 bar by DIPPR-101 (computed from Perry's 8th ed. Table 2-8)", () => {
     const r = cli("vapor-pressure", { solvent: "tetrahydrofuran", temperatureC: 120 });
     expect(r.status).toBe(0);
     expect(Math.abs((r.body.bar as number) - 4.437)).toBeLessThan(5e-4);
@@ -24,7 +24,7 @@ describe("vapor-pressure verb", () => {
   it("accepts a CAS number", () => {
     const r = cli("vapor-pressure", { solvent: "7732-18-5", temperatureC: 100 });
     expect(r.status).toBe(0);
-    expect(Math.abs((r.body.bar as number) - 1.01418)).toBeLessThan(5e-6); // REFERENCE.md §1 [C, IF97]
+    expect(Math.abs((r.body.bar as number) - 1.01418)).toBeLessThan(5e-6); // IAPWS R7-97(2012) eq. 30, computed [C]
     expect(r.body.method).toBe("IAPWS-IF97");
   });
   it("an unknown solvent exits 2 with path solvent", () => {

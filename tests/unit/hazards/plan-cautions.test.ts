@@ -12,7 +12,7 @@ import {
   type VesselType,
 } from "@/lib/hazards";
 
-// A confirmed 20 bar microwave vial (REFERENCE.md §2 [M]) and DMSO at 25 °C: no rule fires.
+// A confirmed 20 bar microwave vial (from memory [M]) and DMSO at 25 °C: no rule fires.
 const vial: VesselType = { ...DEFAULT_VESSELS.find((v) => v.id.includes("microwave"))!, confirmWithSupplier: false };
 const flask: VesselType = { ...DEFAULT_VESSELS.find((v) => !v.sealed)!, confirmWithSupplier: false };
 
@@ -37,7 +37,7 @@ function plan(runs: Run[], over: Partial<PlanCautionInput> = {}) {
 const codes = (r: ReturnType<typeof plan>) => r.cautions.map((c) => c.code);
 const one = (over: Partial<Run> = {}, planOver: Partial<PlanCautionInput> = {}) => plan([run(over)], planOver);
 
-const nBuLi: Component = { name: "n-butyllithium 2.5 M in hexanes", ghs: ["H225", "H250", "H261", "H314"], volumeUl: 100 }; // REFERENCE.md §4 typical reagents [M]
+const nBuLi: Component = { name: "n-butyllithium 2.5 M in hexanes", ghs: ["H225", "H250", "H261", "H314"], volumeUl: 100 }; // typical statements, from memory [M]
 
 
 describe("baseline", () => {
@@ -102,7 +102,7 @@ describe("TL-V03 fill above the maximum (blocking)", () => {
 });
 
 describe("TL-V04 vapour pressure outside the correlation's range (info)", () => {
-  // THF's Perry's range starts at 164.65 K = −108.5 °C (REFERENCE.md §1).
+  // THF's Perry's range starts at 164.65 K = −108.5 °C (Perry's 8th ed. Table 2-8 Tmin).
   const thf = [{ name: "THF", volumeFraction: 1 }];
   it("fires below Tmin", () => {
     const r = one({ temperatureC: -109, solvents: thf });
@@ -138,7 +138,7 @@ describe("TL-V06 vessel rating not confirmed (info)", () => {
 });
 
 describe("TL-F01 above the flash point", () => {
-  // Toluene flash point 4 °C [V], REFERENCE.md §3.
+  // Toluene flash point 4 °C [V], the record's published source (docs/sources.md).
   const tol = [{ name: "toluene", volumeFraction: 1 }];
   it("fires at 4.5 °C", () => {
     const r = one({ temperatureC: 4.5, solvents: tol });
@@ -150,7 +150,7 @@ describe("TL-F01 above the flash point", () => {
 });
 
 describe("TL-F02 within the autoignition margin (blocking)", () => {
-  // Diethyl ether autoignition 160 °C [V], REFERENCE.md §3; default margin 50 °C (lab threshold).
+  // Diethyl ether autoignition 160 °C [V], the record's published source (docs/sources.md); default margin 50 °C (lab threshold).
   const ether = [{ name: "diethyl ether", volumeFraction: 1 }];
   it("fires at 110 °C", () => {
     const r = one({ temperatureC: 110, solvents: ether }, { vessel: flask });
@@ -221,7 +221,7 @@ describe("TL-R01 / TL-R02 / TL-R03 / TL-R04 reactive reagents", () => {
 });
 
 describe("TL-X01 / TL-X02 / TL-X03 peroxide formers", () => {
-  // Class B interval 12 months, class A 3 months, unopened 18 months (REFERENCE.md §3,
+  // Class B interval 12 months, class A 3 months, unopened 18 months (the record's published source (docs/sources.md),
   // Prudent Practices in the Laboratory, NRC 2011); "now" is 2026-12-01.
   const thfComponent = (over: Partial<Component>): Component => ({ name: "THF", ghs: ["H225", "EUH019"], peroxideClass: "B", ...over });
   const tol = [{ name: "toluene", volumeFraction: 1 }];

@@ -6,8 +6,8 @@ const cat = builtInCatalogue();
 const part = (name: string, volumeFraction: number) => ({ record: cat.resolve(name, "x"), volumeFraction });
 
 
-describe("sealed-vessel pressure (REFERENCE.md §2 model)", () => {
-  it("THF sealed at 1 atm and 25 °C, half full, heated to 120 °C: ≈ 5.6 bar absolute within 10 % (REFERENCE.md §2 example [C])", () => {
+describe("sealed-vessel pressure (ideal-gas + Raoult model, docs/hazards.md)", () => {
+  it("THF sealed at 1 atm and 25 °C, half full, heated to 120 °C: ≈ 5.6 bar absolute within 10 % (worked example computed from the model [C], docs/sources.md)", () => {
     const est = estimateSealedVessel({
       parts: [part("THF", 1)],
       temperatureC: 120,
@@ -57,7 +57,7 @@ describe("sealed-vessel pressure (REFERENCE.md §2 model)", () => {
     expect(Math.abs(est.totalBar! - 1.01325)).toBeLessThan(1e-12);
   });
 
-  it("declared gas adds n·R·T/V_head: 1 mmol in 1 mL at 100 °C ≈ 31 bar (REFERENCE.md §2)", () => {
+  it("declared gas adds n·R·T/V_head: 1 mmol in 1 mL at 100 °C ≈ 31 bar (n·R·T/V with R = 0.0831446 L·bar/(mol·K), CODATA 2018)", () => {
     const est = estimateSealedVessel({
       parts: [part("DMSO", 1)],
       temperatureC: 100,
@@ -69,7 +69,7 @@ describe("sealed-vessel pressure (REFERENCE.md §2 model)", () => {
     });
     // Scaled to a 1 mL headspace: gasBar · V_head(hot) is the pressure 1 mmol would give in 1 mL.
     const perMl = est.gasBar! * est.headspaceHotMl;
-    expect(Math.abs(perMl - 31)).toBeLessThan(0.05); // REFERENCE.md §2: "adds 31 bar at 100 °C"
+    expect(Math.abs(perMl - 31)).toBeLessThan(0.05); // n·R·T/V computed by hand: 1e-3 mol × 0.0831446 × 373.15 K / 1e-3 L = 31.03 bar
     expect(Math.abs(perMl - R_L_BAR_PER_MOL_K * 373.15)).toBeLessThan(1e-9); // computed in this test from n·R·T/V
   });
 

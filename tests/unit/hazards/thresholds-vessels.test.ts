@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { DEFAULT_EQUIPMENT, DEFAULT_LAB_THRESHOLDS, DEFAULT_VESSELS, equipmentSchema, labThresholdsSchema, vesselTypeSchema } from "@/lib/hazards";
 
 describe("lab thresholds", () => {
-  it("default to the values of REFERENCE.md", () => {
+  it("default to the values of docs/sources.md (Prudent Practices 2011 intervals; common practice)", () => {
     const t = labThresholdsSchema.parse({});
     expect(t.safetyFactor).toBe(0.5); // §2 "keep the estimate ≤ ~50 % of the rating" [CP]
     expect(t.peroxideTestIntervalMonths.A).toBe(3); // §3 class A, 3 months (Prudent Practices, NRC 2011)
@@ -27,7 +27,7 @@ describe("lab thresholds", () => {
   });
 });
 
-describe("default vessels (REFERENCE.md §2, from memory / common practice)", () => {
+describe("default vessels (from memory / common practice, docs/sources.md)", () => {
   it("all validate and are flagged 'confirm with your supplier'", () => {
     expect(DEFAULT_VESSELS.length).toBeGreaterThan(3);
     for (const v of DEFAULT_VESSELS) {

@@ -20,7 +20,7 @@ function relErr(actual: number, expected: number): number {
 
 
 describe("IAPWS-IF97 region 4 (water saturation line)", () => {
-  // REFERENCE.md §1 check points [C, IF97]; tolerance: half a unit in the last digit given.
+  // IAPWS R7-97(2012) region 4 check points, computed [C]; tolerance: half a unit in the last digit given.
   it("Psat(100 °C) = 1.01418 bar", () => {
     expect(Math.abs(if97SaturationPressureBar(373.15) - 1.01418)).toBeLessThan(5e-6);
   });
@@ -43,12 +43,12 @@ describe("IAPWS-IF97 region 4 (water saturation line)", () => {
     const r = vaporPressure("water", 120);
     expect(r.method).toBe("IAPWS-IF97");
     expect(r.inRange).toBe(true);
-    expect(Math.abs(r.bar - 1.98665)).toBeLessThan(5e-6); // REFERENCE.md §1 [C, IF97]
+    expect(Math.abs(r.bar - 1.98665)).toBeLessThan(5e-6); // IAPWS R7-97(2012) eq. 30, computed [C]
   });
 });
 
 describe("DIPPR-101 (Perry's Table 2-8) check values", () => {
-  // REFERENCE.md §1 "Check values [C, from the Perry's set]"; tolerance half a unit in the last digit given.
+  // check values computed from Perry's 8th ed. Table 2-8 [C]; tolerance half a unit in the last digit given.
   const cases: Array<[string, number, number, number]> = [
     ["tetrahydrofuran", 100, 2.722, 5e-4],
     ["tetrahydrofuran", 120, 4.437, 5e-4],
@@ -68,7 +68,7 @@ describe("DIPPR-101 (Perry's Table 2-8) check values", () => {
 });
 
 describe("NIST Antoine set against the Perry's set", () => {
-  // REFERENCE.md §1: inside their ranges the NIST Antoine sets agree with the Perry's
+  // NIST WebBook SRD 69 Antoine vs Perry's Table 2-8: inside their ranges the NIST Antoine sets agree with the Perry's
   // DIPPR-101 set to about 1 %; checked here at the middle of each NIST range.
   for (const r of BUILT_IN_SOLVENTS) {
     const a = r.antoine;
@@ -84,8 +84,8 @@ describe("NIST Antoine set against the Perry's set", () => {
   it("a solvent with only an Antoine set (2-methyltetrahydrofuran, range unknown) is flagged as not in range", () => {
     const r = vaporPressure("2-MeTHF", 80);
     expect(r.method).toBe("Antoine");
-    expect(r.inRange).toBe(false); // REFERENCE.md §1: "valid T unknown"
-    expect(Math.abs(r.bar - 1.01325)).toBeLessThan(0.01); // listed nbp 80.2 °C [V*], REFERENCE.md §3
+    expect(r.inRange).toBe(false); // secondary Antoine set, valid range unknown [S]
+    expect(Math.abs(r.bar - 1.01325)).toBeLessThan(0.01); // listed nbp 80.2 °C [V*], the record's published source (docs/sources.md)
   });
   it("outside its DIPPR range a correlation is used but flagged (THF at −110 °C, below Tmin 164.65 K)", () => {
     const r = vaporPressure("THF", -110);
@@ -96,14 +96,14 @@ describe("NIST Antoine set against the Perry's set", () => {
 
 describe("normal boiling points", () => {
   // Each solvent's computed normal boiling point (vapour pressure = 1.01325 bar) within
-  // 1.5 °C of the value listed in its record: REFERENCE.md §3 where listed (its tag), else
+  // 1.5 °C of the value listed in its record: the record's published source (docs/sources.md) where listed (its tag), else
   // from memory (tag M), as the record's source says.
   for (const r of BUILT_IN_SOLVENTS) {
     const listed = r.normalBoilingPointC;
     const check = () => expect(Math.abs(boilingPointC(r) - listed.value)).toBeLessThan(1.5);
     if (r.id === "dimethyl-sulfoxide") {
       // Known discrepancy, kept visible rather than loosened: Perry's DIPPR-101 set for
-      // DMSO as given in REFERENCE.md §1 reaches 1 atm at ≈190.7 °C, 1.7 °C above the
+      // DMSO as we have Perry's set reaches 1 atm at ≈190.7 °C, 1.7 °C above the
       // listed 189 °C [V]. The correlation (not the code: the other check values match)
       // is the side that is off. This test fails as expected until the data are fixed.
       it.fails(`${r.name}: computed normal boiling point within 1.5 °C of ${listed.value} °C (${listed.tag}) — known data discrepancy`, check);
@@ -114,7 +114,7 @@ describe("normal boiling points", () => {
 });
 
 describe("Clausius–Clapeyron with Trouton's rule (estimate)", () => {
-  it("THF at 120 °C from its boiling point 66 °C gives 4.34 bar (REFERENCE.md §1)", () => {
+  it("THF at 120 °C from its boiling point 66 °C gives 4.34 bar (Clausius–Clapeyron with Trouton's rule, computed [C])", () => {
     expect(Math.abs(troutonEstimateBar(66 + 273.15, 120 + 273.15) - 4.34)).toBeLessThan(0.005);
   });
   it("a solvent without correlations (1,2-dimethoxyethane) is estimated and says so", () => {
@@ -123,7 +123,7 @@ describe("Clausius–Clapeyron with Trouton's rule (estimate)", () => {
     expect(r.inRange).toBe(false);
     expect(r.source).toMatch(/Trouton/);
   });
-  it("is refused for a protic lab solvent without correlations (REFERENCE.md §1: not for water or alcohols)", () => {
+  it("is refused for a protic lab solvent without correlations (Trouton's rule does not hold for hydrogen-bonded liquids)", () => {
     const lab: SolventRecordInput[] = [
       {
         id: "1-butanol-lab",
@@ -173,7 +173,7 @@ describe("solvent records", () => {
       }
     }
   });
-  it("list the peroxide classes of REFERENCE.md §3 (THF, diethyl ether, 1,4-dioxane, DME, 2-propanol: B)", () => {
+  it("list the peroxide classes of the record's published source (docs/sources.md) (THF, diethyl ether, 1,4-dioxane, DME, 2-propanol: B)", () => {
     const c = builtInCatalogue();
     for (const n of ["THF", "diethyl ether", "1,4-dioxane", "DME", "2-propanol", "2-MeTHF"]) {
       expect(c.find(n)?.peroxideClass?.value, n).toBe("B");

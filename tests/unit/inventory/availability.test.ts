@@ -2,9 +2,10 @@ import { describe, expect, it } from "vitest";
 import { perBaseUnit } from "@/inventory/conversion";
 import { ceil, div, mul, rational, parseDecimal } from "@/inventory/decimal";
 import { proposeContainers, type ChemicalFacts, type ContainerFacts } from "@/inventory/availability";
-import { addMonths, peroxideTestDue } from "@/inventory/peroxide";
+import { peroxideTestDue } from "@/inventory/peroxide";
+import { addCalendarMonths as addMonths } from "@/lib/hazards/peroxide-due";
 
-const intervals = { A: 3, B: 12, C: 12, D: 12, unopened: 18 }; // lib/hazards/thresholds.ts defaults (REFERENCE §3)
+const intervals = { A: 3, B: 12, C: 12, D: 12, unopened: 18 }; // lib/hazards/thresholds.ts defaults (Prudent Practices in the Laboratory, NRC 2011)
 
 const chem = (over: Partial<ChemicalFacts> & { id: string }): ChemicalFacts => ({
   name: over.id,
