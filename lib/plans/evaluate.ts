@@ -8,7 +8,7 @@
 import { AppError, type FieldIssue } from "../errors/app-error";
 import { planReport, type PlanReport } from "../chemistry/plan-report";
 import type { RunSheet } from "../chemistry/run-sheet";
-import type { PlanDocument } from "../chemistry/plan-document";
+import type { PlanDocumentInput } from "../chemistry/plan-document";
 import { PLANNING_NOTICE } from "../hazards/caution-rules";
 import type { PlanCautionReport } from "../hazards/plan-cautions";
 import { DOCUMENT_PATH } from "./document";
@@ -31,21 +31,28 @@ export interface PlanEvaluation {
   notice: string;
   /** Why there is no run sheet, or null. */
   problem: PlanProblem | null;
+  /**
+   * Where the document disagrees with the inventory record of a linked chemical (state,
+   * density, purity, molarity), at `document.<path>`: shown to the chemist; the inventory's
+   * hazard facts were used.
+   */
+  inventoryIssues: FieldIssue[];
 }
 
 /** Splits the `plan` verb's output into the run sheet and the caution report. */
-export function splitReport(report: PlanReport): PlanEvaluation {
+export function splitReport(report: PlanReport, inventoryIssues: FieldIssue[] = []): PlanEvaluation {
   const { cautions, signOffRequired, signOffReasons, releasable, perRun, notice, ...runSheet } = report;
-  return { runSheet, cautions, signOffRequired, signOffReasons, releasable, perRun, notice, problem: null };
+  return { runSheet, cautions, signOffRequired, signOffReasons, releasable, perRun, notice, problem: null, inventoryIssues };
 }
 
 /**
- * Evaluates a stored plan document with the `plan` verb's engine function.
- * A plan whose run sheet cannot be built is not releasable.
+ * Evaluates a stored plan document (with the inventory's facts applied, when it links
+ * chemicals) with the `plan` verb's engine function. A plan whose run sheet cannot be
+ * built is not releasable.
  */
-export function evaluatePlan(doc: PlanDocument): PlanEvaluation {
+export function evaluatePlan(doc: PlanDocumentInput, inventoryIssues: FieldIssue[] = []): PlanEvaluation {
   try {
-    return splitReport(planReport(doc));
+    return splitReport(planReport(doc), inventoryIssues);
   } catch (e) {
     if (e instanceof AppError && (e.code === "infeasible" || e.code === "invalid_input")) {
       return {
@@ -57,6 +64,7 @@ export function evaluatePlan(doc: PlanDocument): PlanEvaluation {
         perRun: [],
         notice: PLANNING_NOTICE,
         problem: { code: e.code, message: e.message, issues: e.issues.map((i) => ({ ...i, path: i.path ? `${DOCUMENT_PATH}.${i.path}` : DOCUMENT_PATH })) },
+        inventoryIssues,
       };
     }
     throw e;

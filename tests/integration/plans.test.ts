@@ -13,6 +13,9 @@ import { readFileSync } from "node:fs";
 import canonicalize from "canonicalize";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { run as planVerb } from "@/lib/cli/verbs/plan";
+import { applyInventoryFacts, linkedChemicalIds } from "@/lib/chemistry/inventory-facts";
+import type { PlanDocumentInput } from "@/lib/chemistry/plan-document";
+import { planHazardFacts } from "@/inventory/server/plan-hazard-facts";
 import { AuditEntry, Plan } from "@/lib/server/models";
 import { SEED } from "../support/integration";
 
@@ -265,6 +268,54 @@ describe("plans API", () => {
     }
     const row = await Plan.findByPk(created.id);
     expect(row).toMatchObject({ version: 1, contentHash: created.contentHash });
+  });
+
+  it("components linked to the inventory take their hazard facts from it; runSheet and cautions equal the plan verb on the linked document", async () => {
+    // Study B's halogen–lithium exchange on the seeded demo inventory (seeders/20261201001000-demo-inventory.cjs):
+    // n-butyllithium linked to its record (H250, H260, EUH014) while the document types no statement,
+    // THF linked to the bottle the inventory proposes first (opened long ago) while the document types a fresh test date.
+    const seeded = (n: number) => `c4e10000-0000-4000-8000-${String(n).padStart(12, "0")}`;
+    const studyB = (): Json => ({
+      name: `Study B ${tag}`,
+      recipe: {
+        limitingReagent: "arBr",
+        scaleMmol: 0.5,
+        concentrationM: 0.5,
+        temperatureC: -78,
+        components: [
+          { id: "arBr", name: "3-bromoanisole", role: "reagent", chemicalId: seeded(8), formula: "C7H7BrO", form: { state: "liquid", densityGPerMl: 1.477, purityWtPercent: 98 } },
+          { id: "buli", name: "n-butyllithium 2.5 M in hexanes", role: "reagent", chemicalId: seeded(9), formula: "C4H9Li", equivalents: 1.1, form: { state: "solution", molarityM: 2.5 }, hazards: { ghs: [], openedOn: "2026-11-30" } },
+        ],
+        solvents: [{ name: "tetrahydrofuran", volumeFraction: 1, chemicalId: seeded(10), openedOn: "2026-11-30", peroxideTestedOn: "2026-11-30" }],
+      },
+      design: { runs: [{ standardOrder: 1 }] },
+      vessel: "vial-4ml-screw-septum",
+      block: "block-cool-24",
+    });
+    const created = await createPlan(studyB());
+    const facts = await planHazardFacts({ labId: SEED.labs.kestrel.id, chemicalIds: linkedChemicalIds(created.document as unknown as PlanDocumentInput) });
+    const linked = applyInventoryFacts(created.document as unknown as PlanDocumentInput, facts).document;
+    const verb = JSON.parse(JSON.stringify(await planVerb(linked))) as Json;
+    const { cautions, signOffRequired, signOffReasons: _r, releasable: _l, perRun: _p, notice: _n, ...runSheet } = verb;
+    expect(created.runSheet).toEqual(runSheet);
+    expect(created.cautions).toEqual(cautions);
+    expect(created.signOffRequired).toBe(signOffRequired);
+    // The record's facts were used: TL-R01 for the pyrophoric reagent, TL-X01 for the THF bottle past its test, neither typed.
+    expect(created.cautions.map((c) => c.code)).toEqual(expect.arrayContaining(["TL-R01", "TL-X01"]));
+    const unlinked = (await planVerb(created.document)) as { cautions: Array<{ code: string }> };
+    expect(unlinked.cautions.map((c) => c.code)).not.toContain("TL-X01");
+    // The stored document keeps what the chemist typed; the facts are applied when the plan is computed.
+    expect((created.document.recipe as { solvents: Array<Json> }).solvents[0]!.peroxideTestedOn).toBe("2026-11-30");
+
+    // A chemical of another lab (Harrow Fen's THF) is refused at its path, and nothing is stored.
+    const before = await Plan.count();
+    const foreign = studyB() as { recipe: { solvents: Array<Json> } };
+    foreign.recipe.solvents[0]!.chemicalId = seeded(19);
+    as(SEED.users.chemist);
+    const res = await studyPlans.POST(req("/x", "POST", { document: foreign }), ctx({ studyId }));
+    expect(res.status).toBe(422);
+    expect(await issuePaths(res)).toEqual(["document.recipe.solvents.0.chemicalId"]);
+    expect(await Plan.count()).toBe(before);
   });
 
   it("another lab's plan is 404 (read, edit, delete); an id that cannot exist is 422 naming planId", async () => {

@@ -30,7 +30,7 @@ export async function createPlan(
     if (study.archivedAt) throw new AppError("conflict", "The study is archived; restore it before adding plans.", [{ path: "studyId", message: "archived" }]);
     const { settings } = await getLabSettings({ labId: opts.labId }, tx);
     const stored = await storedDocument(body.document, settings, randomSeed);
-    const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: stored.document }, tx);
+    const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: stored.document, refuseUnknownChemicals: true }, tx);
     refuseInvalid(evaluation);
     const created = await Plan.create(
       {

@@ -30,7 +30,7 @@ export async function updatePlan(opts: { labId: string; actorUserId: string; pla
     const next = stateAfterEdit(plan.state);
     const { settings } = await getLabSettings({ labId: opts.labId }, tx);
     const stored = await storedDocument(body.document, settings, randomSeed);
-    const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: stored.document }, tx);
+    const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: stored.document, refuseUnknownChemicals: true }, tx);
     refuseInvalid(evaluation);
     if (stored.contentHash === plan.contentHash) return planView(planSummary(plan), plan.document, evaluation);
 
