@@ -15,11 +15,13 @@ import { SafetyDataSheet } from "./safety-data-sheet";
 import { Container } from "./container";
 import { Reservation } from "./reservation";
 import { StockLedgerEntry } from "./stock-ledger-entry";
+import { ApiToken } from "./api-token";
 import { Study } from "./study";
 import { Plan } from "./plan";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
+export { ApiToken };
 export { Study, Plan };
 
 export function initModels(sequelize: Sequelize): void {
@@ -35,6 +37,7 @@ export function initModels(sequelize: Sequelize): void {
   Container.initModel(sequelize);
   Reservation.initModel(sequelize);
   StockLedgerEntry.initModel(sequelize);
+  ApiToken.initModel(sequelize);
   Study.initModel(sequelize);
   Plan.initModel(sequelize);
 
@@ -47,6 +50,7 @@ export function initModels(sequelize: Sequelize): void {
   Container.belongsTo(Location, { foreignKey: "locationId", as: "location" });
   Chemical.hasMany(Container, { foreignKey: "chemicalId", as: "containers" });
   Reservation.belongsTo(Container, { foreignKey: "containerId", as: "container" });
+  ApiToken.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Study.belongsTo(User, { foreignKey: "authorId", as: "author" });
   Plan.belongsTo(User, { foreignKey: "authorId", as: "author" });
   Plan.belongsTo(Study, { foreignKey: "studyId", as: "study" });

@@ -53,7 +53,7 @@ export function PageHeader({ title, children, actions }: { title: string; childr
   return (
     <div className="flex flex-wrap items-end justify-between gap-3">
       <div>
-        <p className="text-sm uppercase tracking-wide text-copper">Inventory</p>
+        <p className="text-sm uppercase tracking-wide text-ink-faint">Inventory</p>
         <h1>{title}</h1>
         {children && <p className="mt-1 max-w-3xl text-sm text-ink-soft">{children}</p>}
       </div>

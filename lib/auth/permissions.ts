@@ -24,6 +24,7 @@ export const PERMISSIONS = [
   "settings.read", // see the lab's settings (vessels, blocks, dispensing limits, thresholds)
   "settings.equipment", // edit vessel types, heating and cooling blocks and dispensing limits
   "settings.thresholds", // edit the hazard thresholds
+  "tokens.manage", // create, list and revoke the lab's API tokens
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
@@ -35,11 +36,16 @@ export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   chemist: [...ALL_READ, ...PLANNING],
   safety_officer: [...ALL_READ, "audit.read", "plans.review", "settings.thresholds"],
   stockkeeper: [...ALL_READ, "chemicals.manage", "stock.manage"],
-  lab_admin: [...ALL_READ, "members.manage", "audit.read", "chemicals.manage", "stock.manage", ...PLANNING, "settings.equipment"],
+  lab_admin: [...ALL_READ, "members.manage", "audit.read", "chemicals.manage", "stock.manage", "tokens.manage", ...PLANNING, "settings.equipment"],
   viewer: [...ALL_READ, "audit.read"],
 };
 
 /** Whether `role` holds `permission`. */
 export function can(role: Role, permission: Permission): boolean {
   return ROLE_PERMISSIONS[role].includes(permission);
+}
+
+/** Whether `role` holds every permission of `other` (a role never hands out more than it holds). */
+export function covers(role: Role, other: Role): boolean {
+  return ROLE_PERMISSIONS[other].every((p) => can(role, p));
 }

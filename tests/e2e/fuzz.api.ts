@@ -32,6 +32,7 @@ import {
   reserveInputSchema,
 } from "../../inventory/schemas";
 import { acceptInvitationSchema, changePasswordSchema, changeRoleSchema, inviteMemberSchema } from "../../lib/members/schemas";
+import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
 import { settingsUpdateSchema } from "../../lib/lab-settings/schemas";
 import { planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
 import { studyCreateSchema, studyUpdateSchema } from "../../lib/studies/schemas";
@@ -256,6 +257,8 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     { route: "labs/[lab]/reservations", method: "POST", body: "json", schema: reserveInputSchema, example: () => ({ planRef: "fuzz-plan", note: "n", lines: [{ containerId: box.id, amount: "1", unit: "mg" }] }), params: { lab: LAB } },
     { route: "labs/[lab]/reservations/[reservationId]/consume", method: "POST", body: "json", schema: consumeInputSchema, example: () => ({ amount: "1", unit: "mg", note: "n" }), params: { lab: LAB, reservationId: randomId } },
     { route: "labs/[lab]/reservations/[reservationId]/release", method: "POST", body: "json", schema: releaseInputSchema, example: () => ({ reason: "not needed" }), params: { lab: LAB, reservationId: randomId } },
+    { route: "labs/[lab]/tokens", method: "POST", body: "json", schema: createApiTokenSchema, example: () => ({ name: "Fuzz token", role: "viewer", expiresInDays: 7 }), params: { lab: LAB } },
+    { route: "labs/[lab]/tokens/[tokenId]", method: "DELETE", body: "none", params: { lab: LAB, tokenId: randomId } },
     // Studies, plans and lab settings (issue 10): ids that match no record, so only refusals are exercised.
     { route: "labs/[lab]/studies", method: "POST", body: "json", schema: studyCreateSchema, example: () => ({ name: "Fuzz study", goal: "g", targetProduct: "t", responses: [{ name: "yield", unit: "%", goal: "target", target: 90, low: 80, high: 100 }] }), params: { lab: LAB } },
     { route: "labs/[lab]/studies/[studyId]", method: "PATCH", body: "json", schema: studyUpdateSchema, example: () => ({ version: 1, name: "Fuzz", responses: [{ name: "yield", unit: "%", goal: "maximize" }] }), params: { lab: LAB, studyId: randomId } },

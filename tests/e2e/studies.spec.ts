@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
 import { expect, test } from "@playwright/test";
 import { DEMO, signIn } from "./support/auth";
+import { openSection } from "./support/nav";
 
 /**
  * Studies and lab settings in the browser (Chromium): a chemist starts a study through the
@@ -73,7 +74,7 @@ test("a viewer reads studies with no way to start one", async ({ page }) => {
 
 test("settings: lab admins edit equipment, safety officers the thresholds, chemists read", async ({ page }, testInfo) => {
   await signIn(page, DEMO.admin);
-  await page.getByRole("navigation", { name: "Lab sections" }).getByRole("link", { name: "Settings", exact: true }).click();
+  await openSection(page, "Lab settings", "Settings");
   await expect(page.getByRole("heading", { name: "Lab settings" })).toBeVisible();
   await expect(page.getByTestId("save-vessels")).toBeVisible();
   await expect(page.getByTestId("save-thresholds")).toHaveCount(0);
