@@ -13,11 +13,15 @@
  * Every section has defaults, so a lab that saved nothing has a complete, usable set.
  * Who may edit each section is data too (`SETTINGS_SECTION_PERMISSION`).
  */
+// First: chooses zod's interpreter before any engine schema below is built (lib/schemas/text.ts).
+import "../schemas/text";
 import { z } from "zod";
 import type { Permission } from "../auth/permissions";
 import { dispensingSchema } from "../chemistry/plan-document";
-import { blockSchema, labThresholdsSchema } from "../hazards/thresholds";
+import { BLOCK_POSITIONS, blockSchema, labThresholdsSchema } from "../hazards/thresholds";
 import { DEFAULT_VESSELS, vesselTypeSchema } from "../hazards/vessels";
+
+export { BLOCK_POSITIONS };
 
 /** A heating or cooling block of the lab: the plan document's `block` plus its temperature range. */
 export const labBlockSchema = blockSchema

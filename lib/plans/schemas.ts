@@ -6,9 +6,10 @@
  * (lib/plans/document.ts), so every issue path points into what the person sent
  * (`document.factors.0.high`).
  */
+// First: chooses zod's interpreter before the engine's plan-document schema is built (lib/schemas/text.ts).
+import { text, uuid } from "../schemas/text";
 import { z } from "zod";
 import { planDocumentSchema } from "../chemistry/plan-document";
-import { text, uuid } from "../schemas/text";
 import { PLAN_STATES } from "./states";
 
 export const PLAN_DERIVATIONS = ["duplicate", "confirmation", "augmentation"] as const;

@@ -5,8 +5,8 @@
  * of Derringer–Suich desirability). One schema for the entity; the create, update and
  * list-query variants are derived from it. Forms use the same schemas through zodResolver.
  */
-import { z } from "zod";
 import { optionalText, text, uuid } from "../schemas/text";
+import { z } from "zod";
 
 /** A response's name is a key in result rows and analysis requests (`?response=yield`). */
 export const RESPONSE_NAME_PATTERN = /^[A-Za-z][A-Za-z0-9_]*$/;
