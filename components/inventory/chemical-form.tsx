@@ -115,7 +115,7 @@ export function ChemicalFields({ register, errors, idPrefix }: { register: UseFo
           <input type="checkbox" {...register("pyrophoric")} /> pyrophoric (H250)
         </label>
         <label className="flex items-center gap-2 text-sm">
-          <input type="checkbox" {...register("waterReactive")} /> water-reactive (H260/H261)
+          <input type="checkbox" {...register("waterReactive")} /> water-reactive (H260/H261/EUH014)
         </label>
       </div>
       <div className="sm:col-span-2">

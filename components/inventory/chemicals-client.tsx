@@ -14,6 +14,7 @@ import { inputClass } from "@/components/ui/field";
 import { Amount } from "./bits";
 import { ChemicalFields, EMPTY_CHEMICAL_FORM, showChemicalIssues } from "./chemical-form";
 import { ChemicalEditDialog } from "./chemical-edit-dialog";
+import { impliedHazards } from "@/lib/hazards/hazard-flags";
 
 const col = tableColumns<ChemicalRow>();
 
@@ -100,7 +101,7 @@ export function ChemicalsClient({ labSlug, canManage, initial }: { labSlug: stri
         <div className="flex max-w-56 flex-wrap gap-1">
           {row.original.pyrophoric && <span className="rounded bg-blocks-bg px-1.5 text-xs text-blocks">pyrophoric</span>}
           {row.original.waterReactive && <span className="rounded bg-blocks-bg px-1.5 text-xs text-blocks">water-reactive</span>}
-          {row.original.peroxideClass && <span className="rounded bg-caution-bg px-1.5 text-xs text-caution">peroxide {row.original.peroxideClass}</span>}
+          <PeroxideTag ghs={row.original.ghsStatements} peroxideClass={row.original.peroxideClass} />
           <span className="text-xs text-ink-faint">{row.original.ghsStatements.join(" ")}</span>
         </div>
       ),
@@ -166,4 +167,11 @@ export function ChemicalsClient({ labSlug, canManage, initial }: { labSlug: stri
       )}
     </div>
   );
+}
+
+/** The peroxide-former tag: the declared class, or "class not given" for EUH019 alone (lib/hazards/hazard-flags is the rule). */
+function PeroxideTag({ ghs, peroxideClass }: { ghs: string[]; peroxideClass: ChemicalRow["peroxideClass"] }) {
+  const former = impliedHazards({ ghs, peroxideClass }).peroxideClass;
+  if (!former) return null;
+  return <span className="rounded bg-caution-bg px-1.5 text-xs text-caution">{former === "unclassified" ? "peroxide, class not given" : `peroxide ${former}`}</span>;
 }
