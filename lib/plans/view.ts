@@ -45,19 +45,24 @@ export type PlanView = PlanSummary &
     reservations: PlanReservationLine[];
   };
 
+/** The settings a stored document's run sheet and cautions are computed with (they live in the document). */
+export function computedWithOf(document: PlanDocument): PlanComputedWith {
+  return {
+    vessel: document.vessel,
+    block: document.block ?? null,
+    equipment: document.equipment,
+    dispensing: document.dispensing,
+    thresholds: document.thresholds,
+  };
+}
+
 /** Puts a plan's stored row and its evaluation together into the GET shape. */
 export function planView(summary: PlanSummary, document: PlanDocument, evaluation: PlanEvaluation): PlanView {
   return {
     ...summary,
     document,
     ...evaluation,
-    computedWith: {
-      vessel: document.vessel,
-      block: document.block ?? null,
-      equipment: document.equipment,
-      dispensing: document.dispensing,
-      thresholds: document.thresholds,
-    },
+    computedWith: computedWithOf(document),
     signature: null,
     reservations: [],
   };

@@ -3,6 +3,7 @@ import { Op, type Transaction } from "sequelize";
 import { AppError, type FieldIssue } from "@/lib/errors/app-error";
 import { applyInventoryFacts, linkedChemicalIds } from "@/lib/chemistry/inventory-facts";
 import type { PlanDocument, PlanDocumentInput } from "@/lib/chemistry/plan-document";
+import type { InventoryChemicalFacts } from "@/lib/chemistry/inventory-facts";
 import { planHazardFacts } from "@/inventory/server/plan-hazard-facts";
 import { Chemical } from "@/lib/server/models";
 import { DOCUMENT_PATH } from "../document";
@@ -21,14 +22,19 @@ const isMissingChemical = (issue: FieldIssue) => issue.path.endsWith(".chemicalI
  * says so at the document path.
  *
  * With `refuseUnknownChemicals` (saving), a chemical the lab does not have is a 422 naming
- * `document.recipe.….chemicalId`, and nothing is stored.
+ * `document.recipe.….chemicalId`, and nothing is stored. `onFacts` receives the facts that
+ * were read (the editor's preview shows the container's purity and molarity from them).
  */
-export async function evaluateStoredPlan(opts: { labId: string; document: PlanDocument; refuseUnknownChemicals?: boolean }, t?: Transaction): Promise<PlanEvaluation> {
+export async function evaluateStoredPlan(
+  opts: { labId: string; document: PlanDocument; refuseUnknownChemicals?: boolean; onFacts?: (facts: Record<string, InventoryChemicalFacts>) => void },
+  t?: Transaction,
+): Promise<PlanEvaluation> {
   const ids = linkedChemicalIds(opts.document);
   if (ids.length === 0) return evaluatePlan(opts.document);
   // Only the lab's own chemicals are read; an id the lab does not have is reported by applyInventoryFacts.
   const known = (await Chemical.findAll({ where: { labId: opts.labId, id: { [Op.in]: ids } }, attributes: ["id"], transaction: t })).map((c) => c.id);
   const facts = await planHazardFacts({ labId: opts.labId, chemicalIds: known }, t);
+  opts.onFacts?.(facts);
   const linked = applyInventoryFacts(opts.document, facts);
   const issues = linked.issues.map((i) => ({ ...i, path: `${DOCUMENT_PATH}.${i.path}` }));
   if (opts.refuseUnknownChemicals && issues.some(isMissingChemical)) {
