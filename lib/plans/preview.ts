@@ -12,7 +12,8 @@
  *   with its assay and molarity, so the editor can fill them in.
  */
 // First: chooses zod's interpreter before the engine's plan-document schema is built (lib/schemas/text.ts).
-import "../schemas/text";
+import { uuid } from "../schemas/text";
+import { z } from "zod";
 import { resolveRuns, type ResolvedRun } from "../chemistry/design-runs";
 import type { InventoryChemicalFacts } from "../chemistry/inventory-facts";
 import type { PlanDocument } from "../chemistry/plan-document";
@@ -23,6 +24,14 @@ import { computedWithOf, type PlanComputedWith } from "./view";
 
 /** `POST /plans/preview`: a plan document as `POST /studies/{study}/plans` takes it. */
 export const planPreviewSchema = planCreateSchema;
+
+/** `GET /plans/preview?chemicals=<id>,<id>`: chemicals of the lab (at most 50). */
+export const previewInventoryQuerySchema = z.object({
+  chemicals: z
+    .string({ message: "name the chemicals (ids, comma-separated)" })
+    .transform((v) => [...new Set(v.split(",").map((s) => s.trim()).filter(Boolean))])
+    .pipe(z.array(uuid("must be chemical ids (UUIDs), comma-separated")).min(1, "name at least one chemical").max(50, "at most 50 chemicals")),
+});
 
 /** What the inventory would use of a linked chemical (null when no container is usable). */
 export interface PreviewInventoryLine {
@@ -74,9 +83,4 @@ export function planPreview(stored: StoredDocument, evaluation: PlanEvaluation, 
     designRuns: evaluation.runSheet ? null : designOnly(stored.document),
     inventory: previewInventory(facts),
   };
-}
-
-/** The rows of the design table: the run sheet's runs, or the design alone when the amounts are infeasible. */
-export function previewDesignRows(p: Pick<PlanPreview, "runSheet" | "designRuns">): ResolvedRun[] {
-  return p.runSheet?.runs ?? p.designRuns ?? [];
 }

@@ -217,9 +217,18 @@ export function toDocument(v: EditorValues): Doc {
  * own schema validates the whole of it.
  */
 export function validationDocument(doc: Doc, settings: LabSettings): Doc {
-  if (typeof doc.block !== "string") return doc;
-  const b = settings.blocks.types.find((x) => x.id === doc.block);
-  return { ...doc, block: b ? { id: b.id, name: b.name, positions: b.positions } : doc.block };
+  const out: Doc = { ...doc };
+  if (typeof doc.block === "string") {
+    const b = settings.blocks.types.find((x) => x.id === doc.block);
+    if (b) out.block = { id: b.id, name: b.name, positions: b.positions };
+  }
+  // A component given only by SMILES gets its formula on the server (openchemlib stays out of the browser).
+  const recipe = obj(doc.recipe);
+  if (Array.isArray(recipe.components)) {
+    const components = recipe.components.map((c) => (isObj(c) && typeof c.smiles === "string" && c.formula === undefined && c.molarMassGPerMol === undefined ? { ...c, formula: "C" } : c));
+    out.recipe = { ...recipe, components };
+  }
+  return out;
 }
 
 // ——— document → form ———

@@ -12,7 +12,7 @@
  */
 import type { FieldIssue } from "@/lib/errors/app-error";
 import { designFieldsOf, ghsList } from "./form-document";
-import type { ComponentValues, EditorValues, FactorValues, SolventValues } from "./form-values";
+import type { ComponentValues, EditorValues, FactorValues } from "./form-values";
 
 /** The read-only panel of the values the plan is computed with (dispensing limits, thresholds). */
 export const SETTINGS_FIELD = "settings";

@@ -4,7 +4,8 @@ import type { InventoryChemicalFacts } from "@/lib/chemistry/inventory-facts";
 import { parseOrThrow } from "@/lib/errors/app-error";
 import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";
 import { storedDocument } from "../document";
-import { planPreview, planPreviewSchema, type PlanPreview } from "../preview";
+import { planHazardFacts } from "@/inventory/server/plan-hazard-facts";
+import { planPreview, planPreviewSchema, previewInventory, previewInventoryQuerySchema, type PlanPreview, type PreviewInventoryLine } from "../preview";
 import { evaluateStoredPlan } from "./evaluate-stored-plan";
 import { randomSeed, refuseInvalid } from "./common";
 
@@ -25,4 +26,15 @@ export async function previewPlan(opts: { labId: string; input: unknown }, t?: T
   const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: stored.document, onFacts: (f) => (facts = f) }, t);
   refuseInvalid(evaluation);
   return planPreview(stored, evaluation, facts);
+}
+
+/**
+ * What the preview would take from the inventory for each of the lab's chemicals named in
+ * `chemicals` (comma-separated ids): the container the inventory proposes and its assay and
+ * molarity (inventory `planHazardFacts`, the same the preview applies). Reads only.
+ * @throws AppError invalid_input naming `chemicals`, not_found for a chemical the lab does not have.
+ */
+export async function previewInventoryOf(opts: { labId: string; query: unknown }, t?: Transaction): Promise<Record<string, PreviewInventoryLine>> {
+  const { chemicals } = parseOrThrow(previewInventoryQuerySchema, opts.query, "The chemical list is not valid.");
+  return previewInventory(await planHazardFacts({ labId: opts.labId, chemicalIds: chemicals }, t));
 }
