@@ -190,14 +190,17 @@ function ComponentCard({
       <div className="flex flex-wrap items-center justify-between gap-2">
         <p className="text-sm font-semibold">
           <span className="text-ink-faint">{i + 1}.</span> {c.name || "New component"}
-          {c.role === "reagent" && c.id === limiting && <span className="ml-2 rounded bg-accent-light px-1.5 py-0.5 text-xs font-medium text-accent">limiting reagent</span>}
+          {c.role === "reagent" && c.id === limiting && (
+            <span className="ml-2 rounded bg-accent-light px-1.5 py-0.5 text-xs font-medium text-accent" data-testid={`component-${i}-limiting`}>
+              limiting reagent
+            </span>
+          )}
         </p>
         <div className="flex items-center gap-3">
-          {c.role === "reagent" && (
-            <label className="flex items-center gap-1.5 text-sm text-ink-soft">
-              <input type="radio" value={c.id} className="accent-accent" {...register("recipe.limitingReagent")} data-testid={`component-${i}-limiting`} />
-              Limiting reagent
-            </label>
+          {c.role === "reagent" && c.id !== limiting && (
+            <button type="button" className="text-sm text-accent underline-offset-2 hover:underline" onClick={() => setValue("recipe.limitingReagent", c.id, { shouldDirty: true, shouldTouch: true })} data-testid={`component-${i}-make-limiting`}>
+              Make it the limiting reagent
+            </button>
           )}
           <Button type="button" variant="secondary" className="px-2 py-1 text-xs" onClick={onRemove} disabled={!canRemove} aria-label={`Remove component ${i + 1}`}>
             Remove
@@ -220,7 +223,7 @@ function ComponentCard({
         {inventoryNote && <p className="text-xs text-ink-soft" data-testid={`component-${i}-inventory`}>{inventoryNote}</p>}
       </div>
 
-      <div className="grid gap-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1.3fr)]">
+      <div className="grid gap-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1.3fr)_minmax(0,1.3fr)]">
         <TextField name={`${base}.name`} label="Name" />
         <Labelled label="Id" name={`${base}.id`}>
           <input

@@ -97,16 +97,22 @@ export function PlanEditor({ labSlug, study, settings, knownSolvents, chemicals:
   // ——— live check (the browser) ———
   const [checked, setChecked] = useState<{ document: Record<string, unknown>; issues: FieldIssue[]; values: EditorValues } | null>(null);
   const checkSeq = useRef(0);
+  /** Typed since the last check: the preview is not of what the form shows. */
+  const [typing, setTyping] = useState(false);
   const runCheck = useCallback(async () => {
     const mine = ++checkSeq.current;
     const values = structuredClone(getValues());
     const r = await checkValues(values, settings);
-    if (mine === checkSeq.current) setChecked({ ...r, values });
+    if (mine === checkSeq.current) {
+      setChecked({ ...r, values });
+      setTyping(false);
+    }
   }, [getValues, settings]);
   useEffect(() => {
     void runCheck();
     let timer: ReturnType<typeof setTimeout> | undefined;
     const sub = watch(() => {
+      setTyping(true);
       clearTimeout(timer);
       timer = setTimeout(() => void runCheck(), 120);
     });
@@ -118,7 +124,8 @@ export function PlanEditor({ labSlug, study, settings, knownSolvents, chemicals:
 
   // ——— the preview (the server) ———
   const previewDocument = checked && checked.issues.length === 0 ? checked.document : null;
-  const preview = usePlanPreview(labSlug, checked ? previewDocument : null);
+  const answered = usePlanPreview(labSlug, checked ? previewDocument : null);
+  const preview = useMemo(() => (typing && answered.preview ? { ...answered, status: "computing" as const, stale: true } : answered), [typing, answered]);
 
   // ——— issues on fields ———
   const store = useMemo(() => new IssueStore(), []);
@@ -135,15 +142,16 @@ export function PlanEditor({ labSlug, study, settings, knownSolvents, chemicals:
     const isShown = (field: string) => showAll || anyTrue(get(dirtyFields, field)) || anyTrue(get(touchedFields, field));
     const client = placeIssues(checked?.issues ?? [], values);
     add(new Map([...client].filter(([field]) => isShown(field))));
-    if (preview.status === "invalid") add(placeIssues(preview.issues, values));
-    if (preview.preview?.problem && !preview.stale) add(placeIssues(preview.preview.problem.issues, values));
+    // The server's answers stay on their fields until a newer answer replaces them (no flicker while typing).
+    add(placeIssues(answered.issues, values));
+    if (answered.preview?.problem && answered.status !== "waiting") add(placeIssues(answered.preview.problem.issues, values));
     for (const h of held) {
       const fresh = placeIssues(h.issues, h.values);
       add(new Map([...fresh].filter(([field]) => field === FORM_LEVEL || JSON.stringify(get(values, field)) === JSON.stringify(get(h.values, field)))));
     }
-    const warnings = preview.preview && !preview.stale ? placeIssues(preview.preview.inventoryIssues, values) : new Map<string, string[]>();
+    const warnings = answered.preview ? placeIssues(answered.preview.inventoryIssues, values) : new Map<string, string[]>();
     return { errors, warnings, clientCount: client.size };
-  }, [checked, preview, held, showAll, dirtyFields, touchedFields, getValues]);
+  }, [checked, answered, held, showAll, dirtyFields, touchedFields, getValues]);
   useEffect(() => store.replace(placed.errors, placed.warnings), [store, placed]);
 
   const focusFirst = useCallback(() => {

@@ -34,9 +34,9 @@ export function RecipeSection() {
           ]}
         />
         {basis === "volume" ? (
-          <NumberField name="recipe.finalVolumeUl" label="Final volume per vial" unit="µL" />
+          <NumberField name="recipe.finalVolumeUl" label="Final volume" unit="µL" hint="per vial" />
         ) : (
-          <NumberField name="recipe.concentrationM" label="Concentration of the limiting reagent" unit="M" hint={driven.has("concentration") ? "a factor varies it; this is the centre" : undefined} />
+          <NumberField name="recipe.concentrationM" label="Concentration" unit="M" hint={driven.has("concentration") ? "of the limiting reagent; a factor varies it" : "of the limiting reagent"} />
         )}
         <NumberField name="recipe.temperatureC" label="Temperature" unit="°C" hint={driven.has("temperature") ? "a factor drives it" : "when no factor drives it"} />
         <NumberField name="recipe.timeH" label="Time" unit="h" hint={driven.has("time") ? "a factor drives it" : undefined} />
