@@ -5,12 +5,27 @@
  * vial; then the run sheet's notes (solids weighed per vial, amounts below the weighing or
  * pipetting limits). Used by the editor's preview, the plan page and the prep screens.
  */
+import type { ReactNode } from "react";
 import type { PlanNote, Stock } from "@/lib/chemistry/dispensing";
 import { microlitres, milligrams, significant } from "./format";
 import { runList } from "./run-list";
 
 function makeUp(s: Stock): string {
   return s.finalVolumeUl >= 1000 ? `${significant(s.finalVolumeUl / 1000, 3)} mL` : microlitres(s.finalVolumeUl);
+}
+
+/** What to take of a member: the mass to weigh, the volume to measure, or both (a neat liquid can be weighed or measured). */
+function take(m: Stock["members"][number]): ReactNode {
+  if (m.weighMg !== null && m.measureUl !== null) {
+    return (
+      <>
+        weigh {milligrams(m.weighMg)} <span className="text-ink-soft">or measure {microlitres(m.measureUl)}</span>
+      </>
+    );
+  }
+  if (m.weighMg !== null) return <>weigh {milligrams(m.weighMg)}</>;
+  if (m.measureUl !== null) return <>measure {microlitres(m.measureUl)}</>;
+  return "—";
 }
 
 export function StocksTable({ stocks, notes, testId = "stocks" }: { stocks: readonly Stock[]; notes: readonly PlanNote[]; testId?: string }) {
@@ -36,8 +51,7 @@ export function StocksTable({ stocks, notes, testId = "stocks" }: { stocks: read
               <thead>
                 <tr className="border-b border-ink-line text-left text-ink-soft">
                   <th scope="col" className="px-3 py-1.5 font-medium">Component</th>
-                  <th scope="col" className="px-3 py-1.5 text-right font-medium">Weigh</th>
-                  <th scope="col" className="px-3 py-1.5 text-right font-medium">or measure</th>
+                  <th scope="col" className="px-3 py-1.5 text-right font-medium">Take</th>
                   <th scope="col" className="px-3 py-1.5 text-right font-medium">Concentration</th>
                   <th scope="col" className="px-3 py-1.5 text-right font-medium">Amount</th>
                 </tr>
@@ -45,9 +59,10 @@ export function StocksTable({ stocks, notes, testId = "stocks" }: { stocks: read
               <tbody>
                 {s.members.map((m) => (
                   <tr key={m.id} className="border-b border-ink-line/60 last:border-0">
-                    <td className="px-3 py-1">{m.name}</td>
-                    <td className="num whitespace-nowrap px-3 py-1 text-right">{m.weighMg === null ? "—" : milligrams(m.weighMg)}</td>
-                    <td className="num whitespace-nowrap px-3 py-1 text-right">{m.measureUl === null ? "—" : microlitres(m.measureUl)}</td>
+                    <td className="min-w-40 px-3 py-1">{m.name}</td>
+                    <td className="num whitespace-nowrap px-3 py-1 text-right" data-testid={`${testId}-${s.id}-${m.id}-take`}>
+                      {take(m)}
+                    </td>
                     <td className="num whitespace-nowrap px-3 py-1 text-right">
                       {significant(m.concentrationM, 3)} M <span className="text-ink-soft">({significant(m.concentrationMgPerMl, 4)} mg/mL)</span>
                     </td>

@@ -243,14 +243,14 @@ function ComponentCard({
       </div>
 
       <div className="grid gap-3 sm:grid-cols-3">
-        <TextField name={`${base}.formula`} label="Formula" mono placeholder="C7H7BrO" hint={info ? `M = ${info.molarMassGPerMol.toFixed(2)} g/mol` : undefined} />
+        <TextField name={`${base}.formula`} label="Formula" mono hint={info ? `M = ${info.molarMassGPerMol.toFixed(2)} g/mol` : undefined} />
         <NumberField name={`${base}.molarMassGPerMol`} label="or molar mass" unit="g/mol" hint="wins over the formula" />
         <SelectField name={`${base}.form.state`} label="Supplied as" options={STATE_OPTIONS} />
         {fields.has("form.densityGPerMl") && <NumberField name={`${base}.form.densityGPerMl`} label="Density" unit="g/mL" />}
         {fields.has("form.purityWtPercent") && <NumberField name={`${base}.form.purityWtPercent`} label="Assay" unit="wt %" />}
         {fields.has("form.molarityM") && <NumberField name={`${base}.form.molarityM`} label="Molarity" unit="M" />}
         {fields.has("form.wtPercent") && <NumberField name={`${base}.form.wtPercent`} label="or strength" unit="wt %" />}
-        {fields.has("form.solvent") && <TextField name={`${base}.form.solvent`} label="In (carrier solvent)" placeholder="hexanes" />}
+        {fields.has("form.solvent") && <TextField name={`${base}.form.solvent`} label="In (carrier solvent)" />}
       </div>
 
       <div className="grid gap-3 sm:grid-cols-3">
@@ -265,7 +265,7 @@ function ComponentCard({
       </div>
 
       <div className="grid gap-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
-        <TextField name={`${base}.hazards.ghs`} label="GHS statements" mono placeholder="H225, H319" hint="comma-separated; from the catalogue when picked" />
+        <TextField name={`${base}.hazards.ghs`} label="GHS statements" mono hint="comma-separated; from the catalogue when picked" />
         <SelectField name={`${base}.hazards.peroxideClass`} label="Peroxide former" options={PEROXIDE_OPTIONS} />
         <div className="flex flex-wrap gap-4 sm:col-span-2">
           <CheckField name={`${base}.hazards.pyrophoric`} label="Pyrophoric" />
@@ -292,7 +292,7 @@ function ComponentCard({
           <NumberField name={`${base}.gasReleasedMolPerMol`} label="Gas released" unit="mol/mol" />
           <CheckField name={`${base}.addSeparately`} label="Never in a master mix" className="self-end pb-2" />
           <TextField name={`${base}.smiles`} label="SMILES (when no formula)" mono />
-          <TextField name={`${base}.casNumber`} label="CAS number" mono placeholder="104-92-7" />
+          <TextField name={`${base}.casNumber`} label="CAS number" mono />
           <div />
           <SelectField name={`${base}.hazards.protic`} label="Protic" options={TRI_OPTIONS} />
           <SelectField name={`${base}.hazards.aqueous`} label="Aqueous" options={TRI_OPTIONS} />

@@ -42,7 +42,7 @@ export function DesignSection() {
       <CardMessages field="design" />
       <div className="grid gap-3 rounded-lg border border-ink-line bg-paper-card p-3 sm:grid-cols-3">
         <SelectField name="design.design" label="Design type" options={options} className="sm:col-span-2" testId="design-type" />
-        {fields.has("generators") && <TextField name="design.generators" label="Generators" mono placeholder="E=ABCD" hint="empty: the minimum-aberration default" />}
+        {fields.has("generators") && <TextField name="design.generators" label="Generators" mono hint="empty: the minimum-aberration default" />}
         {fields.has("alpha") && (
           <SelectField
             name="design.alpha"

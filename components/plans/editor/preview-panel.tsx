@@ -22,7 +22,7 @@ const TABS = [
   ["runs", "Run sheet"],
   ["stocks", "Stocks"],
   ["map", "Vial map"],
-  ["values", "Values used"],
+  ["values", "Values"],
 ] as const;
 type Tab = (typeof TABS)[number][0];
 
@@ -99,7 +99,7 @@ export function PreviewPanel({ state, factors, waitingCount, onShowProblems, set
             id={`preview-tab-${id}`}
             aria-selected={tab === id}
             aria-controls={`preview-pane-${id}`}
-            className={`-mb-px rounded-t-md border px-3 py-1.5 text-sm ${tab === id ? "border-ink-line border-b-paper bg-paper font-medium text-ink" : "border-transparent text-ink-soft hover:text-ink"}`}
+            className={`-mb-px rounded-t-md border px-2.5 py-1.5 text-sm ${tab === id ? "border-ink-line border-b-paper bg-paper font-medium text-ink" : "border-transparent text-ink-soft hover:text-ink"}`}
             onClick={() => setTab(id)}
           >
             {label}

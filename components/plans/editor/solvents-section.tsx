@@ -111,7 +111,7 @@ function SolventRow({ index: i, chemicals, onPick, onRemove, canRemove }: { inde
         <ChemicalPicker chemicals={chemicals} onPick={onPick} label="Link to a solvent of the lab's catalogue (optional)" testId={`solvent-${i}-pick`} />
       </div>
       <div className="grid gap-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
-        <TextField name={`${base}.ghs`} label="GHS statements" mono placeholder="H225, EUH019" />
+        <TextField name={`${base}.ghs`} label="GHS statements" mono />
         <SelectField name={`${base}.peroxideClass`} label="Peroxide former" options={PEROXIDE_OPTIONS} />
       </div>
       <div>
