@@ -158,7 +158,7 @@ export function vialBlockSvg(block: VialBlock, options: BlockSvgOptions = {}): s
     }
     parts.push(`<circle cx="${cx}" cy="${cy}" r="${g.radius}" fill="${fill}" stroke="${outline}" stroke-width="1"/>`);
     // The run number on a paper disc so it reads on any fill and pattern.
-    parts.push(`<circle cx="${cx}" cy="${cy}" r="${g.radius * 0.58}" fill="#ffffff" stroke="${style.fill}" stroke-width="0.6"/>`);
+    parts.push(`<circle cx="${cx}" cy="${cy}" r="${g.radius * 0.72}" fill="#ffffff" stroke="${style.fill}" stroke-width="0.6"/>`);
     parts.push(`<text x="${cx}" y="${cy + fs * 0.36}" text-anchor="middle" font-family="${font}" font-size="${fs * (p.run >= 100 ? 0.8 : 1)}" font-weight="bold" fill="${SHEET_COLORS.ink}">${p.run}</text>`);
   }
   parts.push(`</g></svg>`);
