@@ -20,7 +20,7 @@ import type { PlanCautionReport } from "../hazards/plan-cautions";
 import type { Equipment, LabThresholds } from "../hazards/thresholds";
 import { vialMap, type VialMap } from "../plans/vial-map";
 import { dispenseRows } from "./dispense-rows";
-import { celsius, fixed, microlitres, milligrams, significant, utcMinute, withUnit } from "./format";
+import { celsius, fixed, microlitres, milligrams, significant, utcMinute } from "./format";
 import { renderPdf } from "./pdf";
 import { pictogramSvg } from "./pictograms";
 import type { ChemicalStatements } from "./plan-hazards";

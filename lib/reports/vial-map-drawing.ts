@@ -76,35 +76,56 @@ export function blockTitle(block: VialBlock): string {
   return `Block ${block.index} · ${celsius(block.temperatureC)}${block.parts > 1 ? ` · ${block.part} of ${block.parts}` : ""}`;
 }
 
-/** The pattern of a group as an SVG <pattern> (id `vm-p<g>` plus `idSuffix`), or null for a plain fill. */
-export function patternDef(g: number, idSuffix = ""): string | null {
+/** One element of a fill pattern, in a 6 × 6 tile. */
+export type PatternElement = { tag: "circle"; cx: number; cy: number; r: number; fill: string; stroke?: string; strokeWidth?: number } | { tag: "path"; d: string; stroke: string; strokeWidth: number };
+
+/** The tile of a group's pattern over its fill colour (empty for a plain fill). */
+export function patternElements(g: number): PatternElement[] {
   const s = groupStyle(g);
-  const id = `vm-p${g}${idSuffix}`;
-  const open = `<pattern id="${id}" patternUnits="userSpaceOnUse" width="6" height="6"><rect width="6" height="6" fill="${s.fill}"/>`;
-  const line = (d: string) => `<path d="${d}" stroke="${s.ink}" stroke-width="1.1" fill="none"/>`;
+  const line = (d: string): PatternElement => ({ tag: "path", d, stroke: s.ink, strokeWidth: 1.1 });
   switch (s.pattern) {
     case "plain":
-      return null;
+      return [];
     case "dots":
-      return `${open}<circle cx="3" cy="3" r="1.1" fill="${s.ink}"/></pattern>`;
+      return [{ tag: "circle", cx: 3, cy: 3, r: 1.1, fill: s.ink }];
     case "diagonal":
-      return `${open}${line("M-1,1 L1,-1 M0,6 L6,0 M5,7 L7,5")}</pattern>`;
+      return [line("M-1,1 L1,-1 M0,6 L6,0 M5,7 L7,5")];
     case "backslash":
-      return `${open}${line("M-1,5 L1,7 M0,0 L6,6 M5,-1 L7,1")}</pattern>`;
+      return [line("M-1,5 L1,7 M0,0 L6,6 M5,-1 L7,1")];
     case "horizontal":
-      return `${open}${line("M0,3 H6")}</pattern>`;
+      return [line("M0,3 H6")];
     case "vertical":
-      return `${open}${line("M3,0 V6")}</pattern>`;
+      return [line("M3,0 V6")];
     case "cross":
-      return `${open}${line("M0,3 H6 M3,0 V6")}</pattern>`;
+      return [line("M0,3 H6 M3,0 V6")];
     case "rings":
-      return `${open}<circle cx="3" cy="3" r="1.6" fill="none" stroke="${s.ink}" stroke-width="0.8"/></pattern>`;
+      return [{ tag: "circle", cx: 3, cy: 3, r: 1.6, fill: "none", stroke: s.ink, strokeWidth: 0.8 }];
   }
+}
+
+/** The id of a group's pattern (`idSuffix` keeps ids unique when several drawings share a page). */
+export function patternId(g: number, idSuffix = ""): string {
+  return `vm-p${g}${idSuffix}`;
+}
+
+/** The pattern of a group as an SVG <pattern> string, or null for a plain fill. */
+export function patternDef(g: number, idSuffix = ""): string | null {
+  const els = patternElements(g);
+  if (els.length === 0) return null;
+  const s = groupStyle(g);
+  const inner = els
+    .map((e) =>
+      e.tag === "circle"
+        ? `<circle cx="${e.cx}" cy="${e.cy}" r="${e.r}" fill="${e.fill}"${e.stroke ? ` stroke="${e.stroke}" stroke-width="${e.strokeWidth ?? 1}"` : ""}/>`
+        : `<path d="${e.d}" stroke="${e.stroke}" stroke-width="${e.strokeWidth}" fill="none"/>`,
+    )
+    .join("");
+  return `<pattern id="${patternId(g, idSuffix)}" patternUnits="userSpaceOnUse" width="6" height="6"><rect width="6" height="6" fill="${s.fill}"/>${inner}</pattern>`;
 }
 
 /** The fill attribute of a group's vials. */
 export function groupFill(g: number, idSuffix = ""): string {
-  return patternDef(g, idSuffix) === null ? groupStyle(g).fill : `url(#vm-p${g}${idSuffix})`;
+  return patternElements(g).length === 0 ? groupStyle(g).fill : `url(#${patternId(g, idSuffix)})`;
 }
 
 function esc(s: string): string {
@@ -158,7 +179,7 @@ export function vialBlockSvg(block: VialBlock, options: BlockSvgOptions = {}): s
     }
     parts.push(`<circle cx="${cx}" cy="${cy}" r="${g.radius}" fill="${fill}" stroke="${outline}" stroke-width="1"/>`);
     // The run number on a paper disc so it reads on any fill and pattern.
-    parts.push(`<circle cx="${cx}" cy="${cy}" r="${g.radius * 0.72}" fill="#ffffff" stroke="${style.fill}" stroke-width="0.6"/>`);
+    parts.push(`<circle cx="${cx}" cy="${cy}" r="${g.radius * 0.66}" fill="#ffffff" stroke="${style.fill}" stroke-width="0.6"/>`);
     parts.push(`<text x="${cx}" y="${cy + fs * 0.36}" text-anchor="middle" font-family="${font}" font-size="${fs * (p.run >= 100 ? 0.8 : 1)}" font-weight="bold" fill="${SHEET_COLORS.ink}">${p.run}</text>`);
   }
   parts.push(`</g></svg>`);
