@@ -385,7 +385,7 @@ function settingsSection(input: PrepSheetInput): Content[] {
   if (e) rows.push(["Heating block maximum", celsius(e.blockMaxC)], ["Cooling minimum", celsius(e.coolingMinC)]);
   return [
     { text: "Lab settings this sheet was computed with", style: "h2" },
-    { table: { widths: [170, "*"], body: rows.map(([k, v]) => [{ text: k, style: "label" }, v]) }, layout: tableLayout("rows") },
+    { table: { widths: [170, "*"], body: rows.map(([k, v]) => [{ text: k, style: "label" }, v]) }, layout: tableLayout("list") },
   ];
 }
 

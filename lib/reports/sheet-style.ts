@@ -31,16 +31,16 @@ export const sheetStyles: StyleDictionary = {
   sigVoid: { bold: true, color: SEVERITY_STYLE.blocking.fg },
 };
 
-/** Table layouts: "rows" (hairlines between rows), "zebra" (banded rows), "box" (one framed cell). */
-export function tableLayout(kind: "rows" | "zebra" | "box"): CustomTableLayout {
+/** Table layouts: "rows" (a header rule, hairlines between rows), "list" (hairlines, no header), "zebra" (banded rows), "box" (one framed cell). */
+export function tableLayout(kind: "rows" | "list" | "zebra" | "box"): CustomTableLayout {
   const line = SHEET_COLORS.line;
   if (kind === "box") {
     return { hLineWidth: () => 0.8, vLineWidth: () => 0.8, hLineColor: () => line, vLineColor: () => line, paddingLeft: () => 6, paddingRight: () => 6, paddingTop: () => 4, paddingBottom: () => 4 };
   }
   return {
-    hLineWidth: (i) => (i === 1 ? 0.8 : kind === "rows" ? 0.4 : 0),
+    hLineWidth: (i) => (i === 1 && kind !== "list" ? 0.8 : kind === "zebra" ? 0 : 0.4),
     vLineWidth: () => 0,
-    hLineColor: (i) => (i === 1 ? SHEET_COLORS.ink : line),
+    hLineColor: (i) => (i === 1 && kind !== "list" ? SHEET_COLORS.ink : line),
     fillColor: (i) => (kind === "zebra" && i > 0 && i % 2 === 0 ? "#f6f2ea" : null),
     paddingLeft: () => 3,
     paddingRight: () => 3,
