@@ -322,40 +322,39 @@ function runsSection(input: PrepSheetInput, map: VialMap): Content[] {
 
 function dispenseSection(sheet: RunSheet, map: VialMap): Content[] {
   const rows = dispenseRows(sheet, map);
-  const body: TableCell[][] = [
-    [
-      { text: "Step", style: "th" },
-      { text: "Vial", style: "th" },
-      { text: "Run", style: "th" },
-      { text: "Add", style: "th" },
-      { text: "Amount", style: "th", alignment: "right" },
-      { text: "From", style: "th" },
-      { text: "Done", style: "th", alignment: "center" },
-    ],
-  ];
-  let lastStep = -1;
+  // One table per step of the order of addition: what to add and from where in its
+  // heading, then every vial with its amount. The rows are the worklist CSV's.
+  const groups: Array<{ key: string; step: number; what: string; from: string; unit: string; rows: typeof rows }> = [];
+  const byKey = new Map<string, (typeof groups)[number]>();
   for (const r of rows) {
-    const first = r.step !== lastStep;
-    lastStep = r.step;
-    body.push([
-      { text: first ? String(r.step) : "", bold: true },
-      { text: r.vial, bold: true },
-      String(r.run),
-      r.what,
-      { text: r.amount === null ? "—" : r.unit === "mg" ? milligrams(r.amount) : microlitres(r.amount), alignment: "right" },
-      r.from,
-      { text: "" },
-    ]);
+    const key = `${r.step}|${r.what}|${r.from}`;
+    let g = byKey.get(key);
+    if (!g) {
+      g = { key, step: r.step, what: r.what, from: r.from, unit: r.unit, rows: [] };
+      byKey.set(key, g);
+      groups.push(g);
+    }
+    g.rows.push(r);
   }
-  return [
+  const out: Content[] = [
     { text: "Dispense table, in the order of addition", style: "h2", pageBreak: "before" },
     {
       text: "Each step goes into every vial before the next step. Solids are weighed into the vial (mg); every liquid is pipetted (µL). The rows are those of the worklist CSV.",
       style: "small",
       margin: [0, 0, 0, 4],
     },
-    { table: { headerRows: 1, widths: [22, 30, 22, "*", 58, 90, 22], body }, layout: tableLayout("zebra"), fontSize: 8 },
   ];
+  for (const g of groups) {
+    const body: TableCell[][] = [
+      [{ text: [{ text: `Step ${g.step}  `, bold: true }, { text: g.what, bold: true }, `  ·  ${g.from}  ·  ${g.unit === "mg" ? "weigh, mg" : "pipette, µL"}`], colSpan: 4, fillColor: "#ebe3d3" }, "", "", ""],
+      [{ text: "Vial", style: "th" }, { text: "Run", style: "th" }, { text: "Amount", style: "th", alignment: "right" }, { text: "Done", style: "th" }],
+    ];
+    for (const r of g.rows) {
+      body.push([r.vial, String(r.run), { text: r.amount === null ? "—" : r.unit === "mg" ? milligrams(r.amount) : microlitres(r.amount), alignment: "right" }, ""]);
+    }
+    out.push({ table: { headerRows: 2, widths: [50, 40, 70, "*"], body }, layout: tableLayout("dispense"), fontSize: 8, margin: [0, 0, 0, 8] });
+  }
+  return out;
 }
 
 function settingsSection(input: PrepSheetInput): Content[] {

@@ -31,11 +31,23 @@ export const sheetStyles: StyleDictionary = {
   sigVoid: { bold: true, color: SEVERITY_STYLE.blocking.fg },
 };
 
-/** Table layouts: "rows" (a header rule, hairlines between rows), "list" (hairlines, no header), "zebra" (banded rows), "box" (one framed cell). */
-export function tableLayout(kind: "rows" | "list" | "zebra" | "box"): CustomTableLayout {
+/** Table layouts: "rows" (a header rule, hairlines between rows), "list" (hairlines, no header), "zebra" (banded rows), "box" (one framed cell), "dispense" (a step heading, a header rule, hairlines). */
+export function tableLayout(kind: "rows" | "list" | "zebra" | "box" | "dispense"): CustomTableLayout {
   const line = SHEET_COLORS.line;
   if (kind === "box") {
     return { hLineWidth: () => 0.8, vLineWidth: () => 0.8, hLineColor: () => line, vLineColor: () => line, paddingLeft: () => 6, paddingRight: () => 6, paddingTop: () => 4, paddingBottom: () => 4 };
+  }
+  if (kind === "dispense") {
+    // A step heading, a header row, then the vials with hairlines.
+    return {
+      hLineWidth: (i) => (i === 2 ? 0.8 : i === 0 || i === 1 ? 0 : 0.3),
+      vLineWidth: () => 0,
+      hLineColor: (i) => (i === 2 ? SHEET_COLORS.ink : line),
+      paddingLeft: () => 3,
+      paddingRight: () => 3,
+      paddingTop: () => 1.5,
+      paddingBottom: () => 1.5,
+    };
   }
   return {
     hLineWidth: (i) => (i === 1 && kind !== "list" ? 0.8 : kind === "zebra" ? 0 : 0.4),

@@ -67,14 +67,14 @@ describe("prep sheet PDF: the demo's Suzuki–Miyaura screen (examples/plan-suzu
     const run = firstVialRun(report);
     const d = run.dispense[0]!;
     const amount = d.kind === "solid" ? amountText(d.massMg!, "mg") : amountText(d.volumeUl!, "µL");
-    // Three temperatures → three blocks: the first vial is 1:A1.
-    const row = new RegExp(`1:A1\\s+${run.run}\\s+${escapeRegExp(d.name)}\\s+${escapeRegExp(amount)}`);
-    expect(text).toMatch(row);
+    // Three temperatures → three blocks: the first vial is 1:A1. The step's heading names what is added.
+    expect(flat(text)).toContain(`Step ${d.step} ${d.name}`);
+    expect(text).toMatch(new RegExp(`\\n\\s*1:A1\\s+${run.run}\\s+${escapeRegExp(amount)}\\s*\\n`));
   });
 
   it("lists every dispense step of every vial once", () => {
     const expected = report.runs.reduce((a, r) => a + r.dispense.length, 0);
-    const rows = text.split("\n").filter((l) => /^\s*\d*\s+\d+:[A-D]\d\s+\d+\s+\S/.test(l));
+    const rows = text.split("\n").filter((l) => /^\s*\d+:[A-D]\d\s+\d+\s+[\d.]+ (mg|µL)\s*$/.test(l));
     expect(rows).toHaveLength(expected);
   });
 
@@ -123,7 +123,7 @@ describe("prep sheet PDF: an invented 96-vial plan on 96-position blocks", () =>
   it("places 48 runs per temperature in two blocks and lists all 96 × steps dispense rows", () => {
     expect(report.runs).toHaveLength(96);
     const expected = report.runs.reduce((a, r) => a + r.dispense.length, 0);
-    const rows = text.split("\n").filter((l) => /^\s*\d*\s+[12]:[A-H]\d{1,2}\s+\d+\s+\S/.test(l));
+    const rows = text.split("\n").filter((l) => /^\s*[12]:[A-H]\d{1,2}\s+\d+\s+[\d.]+ (mg|µL)\s*$/.test(l));
     expect(rows).toHaveLength(expected);
     // 48 runs fill rows A–D of 12 columns: the last vial of each block is D12, and nothing sits in E–H.
     expect(text).toMatch(/\s2:D12\s/);
