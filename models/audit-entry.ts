@@ -5,6 +5,8 @@ export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreation
   declare id: CreationOptional<string>;
   declare labId: string | null;
   declare actorUserId: string | null;
+  /** The lab API token that made the change (its creator is actorUserId), or null. */
+  declare actorTokenId: string | null;
   declare action: string;
   declare entityType: string;
   declare entityId: string | null;
@@ -18,6 +20,7 @@ export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreation
         id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
         labId: { type: DataTypes.UUID, allowNull: true },
         actorUserId: { type: DataTypes.UUID, allowNull: true },
+        actorTokenId: { type: DataTypes.UUID, allowNull: true },
         action: { type: DataTypes.STRING(100), allowNull: false },
         entityType: { type: DataTypes.STRING(60), allowNull: false },
         entityId: { type: DataTypes.STRING(100), allowNull: true },

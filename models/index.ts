@@ -15,9 +15,11 @@ import { SafetyDataSheet } from "./safety-data-sheet";
 import { Container } from "./container";
 import { Reservation } from "./reservation";
 import { StockLedgerEntry } from "./stock-ledger-entry";
+import { ApiToken } from "./api-token";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
+export { ApiToken };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -32,6 +34,7 @@ export function initModels(sequelize: Sequelize): void {
   Container.initModel(sequelize);
   Reservation.initModel(sequelize);
   StockLedgerEntry.initModel(sequelize);
+  ApiToken.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -42,4 +45,5 @@ export function initModels(sequelize: Sequelize): void {
   Container.belongsTo(Location, { foreignKey: "locationId", as: "location" });
   Chemical.hasMany(Container, { foreignKey: "chemicalId", as: "containers" });
   Reservation.belongsTo(Container, { foreignKey: "containerId", as: "container" });
+  ApiToken.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
 }

@@ -13,6 +13,7 @@ import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
 import { Amount, ExpiryDate } from "./bits";
 import { rational, toDecimalString } from "@/inventory/decimal";
+import { isPeroxideTestDue } from "@/lib/hazards/peroxide-due";
 
 interface AvailabilityResult {
   lines: Array<{ requirement: number; chemicalId: string; chemicalName: string; picks: Array<{ containerId: string; barcode: string; amountBase: string; dimension: "mass" | "volume"; display: string }>; shortfall: { amount: number; unit: string } | null }>;
@@ -97,7 +98,7 @@ export function AlertsClient({ labSlug, canManage, initial, chemicals }: { labSl
         </section>
         <section className="rounded-lg border border-ink-line bg-paper-card p-4" data-testid="peroxide-due">
           <h2 className="mb-2">Peroxide formers to test</h2>
-          <ContainerList labSlug={labSlug} rows={a.peroxideDue} today={a.today} empty="No peroxide former is due for a test within 30 days." extra={(r) => <span className={`num ${r.flags.peroxideTestDue && r.flags.peroxideTestDue < a.today ? "font-medium text-blocks" : "text-caution"}`}>test due {r.flags.peroxideTestDue}</span>} />
+          <ContainerList labSlug={labSlug} rows={a.peroxideDue} today={a.today} empty="No peroxide former is due for a test within 30 days." extra={(r) => <span className={`num ${r.flags.peroxideTestDue && isPeroxideTestDue(r.flags.peroxideTestDue, a.today) ? "font-medium text-blocks" : "text-caution"}`}>test due {r.flags.peroxideTestDue}</span>} />
         </section>
         <section className="rounded-lg border border-ink-line bg-paper-card p-4">
           <h2 className="mb-2">Expired</h2>

@@ -1,4 +1,5 @@
 import type { AmountView, ContainerRow } from "@/inventory/schemas";
+import { isPeroxideTestDue } from "@/lib/hazards/peroxide-due";
 
 /** An amount with its unit, in tabular figures, never wrapped between number and unit. */
 export function Amount({ value, testId }: { value: AmountView | null | undefined; testId?: string }) {
@@ -23,7 +24,7 @@ export function StatusBadge({ status }: { status: ContainerRow["status"] }) {
 
 /** Hazard flags as short labelled marks (not colour alone). */
 export function HazardFlags({ flags, today }: { flags: ContainerRow["flags"]; today?: string }) {
-  const due = flags.peroxideTestDue && today && flags.peroxideTestDue < today;
+  const due = !!flags.peroxideTestDue && !!today && isPeroxideTestDue(flags.peroxideTestDue, today);
   return (
     <span className="inline-flex flex-wrap gap-1">
       {flags.pyrophoric && <span className="rounded bg-blocks-bg px-1.5 py-0.5 text-xs font-medium text-blocks">pyrophoric</span>}
@@ -53,7 +54,7 @@ export function PageHeader({ title, children, actions }: { title: string; childr
   return (
     <div className="flex flex-wrap items-end justify-between gap-3">
       <div>
-        <p className="text-sm uppercase tracking-wide text-copper">Inventory</p>
+        <p className="text-sm uppercase tracking-wide text-ink-faint">Inventory</p>
         <h1>{title}</h1>
         {children && <p className="mt-1 max-w-3xl text-sm text-ink-soft">{children}</p>}
       </div>

@@ -8,13 +8,13 @@ export function AppShell({ user, roleLabel, lab, children }: { user: { name: str
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-ink-line bg-paper-card/70">
-        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-6 py-3">
+        <div className="mx-auto flex max-w-7xl items-center gap-x-4 px-4 py-2.5 lg:px-6">
           <Wordmark />
-          <div className="flex flex-1 flex-wrap items-center gap-4">{lab}</div>
+          <div className="flex min-w-0 flex-1 items-center gap-3 lg:gap-4">{lab}</div>
           <UserMenu name={user.name} roleLabel={roleLabel} />
         </div>
       </header>
-      <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8">{children}</main>
+      <main className="mx-auto w-full max-w-6xl flex-1 px-4 py-8 lg:px-6">{children}</main>
       <SafetyNotice />
     </div>
   );

@@ -2,8 +2,8 @@ import type { ButtonHTMLAttributes } from "react";
 
 type Variant = "primary" | "secondary" | "danger";
 const styles: Record<Variant, string> = {
-  primary: "bg-copper text-paper-card hover:bg-copper-dark",
-  secondary: "border border-ink-line bg-paper-card text-ink hover:bg-paper-deep",
+  primary: "bg-accent text-paper-card hover:bg-accent-dark",
+  secondary: "border border-ink-edge bg-paper-card text-ink hover:bg-paper-deep",
   danger: "border border-blocks/40 bg-paper-card text-blocks hover:bg-blocks-bg",
 };
 

@@ -19,4 +19,4 @@ export function Field({ label, htmlFor, error, hint, children }: { label: string
 }
 
 export const inputClass =
-  "rounded-md border border-ink-line bg-paper-card px-2.5 py-1.5 text-sm text-ink placeholder:text-ink-faint focus:border-copper focus:outline-none";
+  "rounded-md border border-ink-edge bg-paper-card px-2.5 py-1.5 text-sm text-ink placeholder:text-ink-faint focus:border-accent focus:outline-none focus:ring-1 focus:ring-accent";

@@ -2,14 +2,19 @@ import "server-only";
 import { cache } from "react";
 import { AppError } from "@/lib/errors/app-error";
 import { Lab, Membership } from "@/lib/server/models";
+import { authenticateApiToken } from "@/lib/api-tokens/server/authenticate-api-token";
+import { readRequestBearer } from "@/lib/api-tokens/server/read-request-token";
 import { can, type Permission } from "./permissions";
-import type { Role } from "./roles";
+import { ROLE_LABELS, type Role } from "./roles";
 import { requireUser, type SessionUser } from "./session";
 
 export interface LabAccess {
   lab: { id: string; slug: string; name: string };
   role: Role;
+  /** The person acting: the signed-in user, or for an API token the lab member who created it. */
   userId: string;
+  /** The lab API token the request authenticated with, or null for a signed-in session. */
+  token: { id: string; name: string } | null;
 }
 
 /**
@@ -36,14 +41,33 @@ const membershipAccess = cache(async (userId: string, labSlug: string): Promise<
     include: [{ model: Lab, as: "lab", where: { slug: labSlug }, required: true }],
   });
   if (!membership?.lab) throw new AppError("not_found", `No lab "${labSlug}" among your labs.`);
-  return { lab: { id: membership.lab.id, slug: membership.lab.slug, name: membership.lab.name }, role: membership.role, userId };
+  return { lab: { id: membership.lab.id, slug: membership.lab.slug, name: membership.lab.name }, role: membership.role, userId, token: null };
 });
 
-/** Session check plus `authorizeLab`: what every lab page, route handler and server action calls. */
+/**
+ * What every lab page, route handler and server action calls. A request with
+ * `Authorization: Bearer <token>` is a lab API token's (lib/api-tokens): 401 when the token
+ * is not valid, revoked or expired, 404 for any lab but its own, 403 when its role (or its
+ * creator's current role) lacks `permission`. Any other request needs a session (401
+ * without) and a membership of the lab (`authorizeLab`).
+ */
 export async function requireLabAccess(labSlug: string, permission?: Permission): Promise<LabAccess & { user: SessionUser }> {
+  const bearer = await readRequestBearer();
+  if (bearer !== null) return tokenLabAccess(bearer, labSlug, permission);
   const user = await requireUser();
   const access = await authorizeLab({ userId: user.id, labSlug, permission });
   return { ...access, user };
+}
+
+/** requireLabAccess for a lab API token: it acts for its creator, with its own role. */
+async function tokenLabAccess(secret: string, labSlug: string, permission?: Permission): Promise<LabAccess & { user: SessionUser }> {
+  const token = await authenticateApiToken(secret);
+  if (token.lab.slug !== labSlug) throw new AppError("not_found", `No lab "${labSlug}" for this API token.`);
+  if (permission && !(can(token.role, permission) && can(token.creatorRole, permission))) {
+    const which = can(token.role, permission) ? `its creator's role (${ROLE_LABELS[token.creatorRole].toLowerCase()})` : `its role (${ROLE_LABELS[token.role].toLowerCase()})`;
+    throw new AppError("forbidden", `The API token "${token.name}" may not do this: ${which} does not allow ${permission}.`);
+  }
+  return { lab: token.lab, role: token.role, userId: token.creator.id, token: { id: token.id, name: token.name }, user: token.creator };
 }
 
 /** The labs a user belongs to, for the lab switcher. */

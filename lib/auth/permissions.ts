@@ -14,6 +14,7 @@ export const PERMISSIONS = [
   "chemicals.manage", // add and edit chemicals, upload safety data sheets
   "stock.read", // see containers, locations, the ledger, reservations and shortfalls
   "stock.manage", // receive, adjust, import and export containers; release stale reservations
+  "tokens.manage", // create, list and revoke the lab's API tokens
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
@@ -23,11 +24,16 @@ export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   chemist: [...ALL_READ],
   safety_officer: [...ALL_READ, "audit.read"],
   stockkeeper: [...ALL_READ, "chemicals.manage", "stock.manage"],
-  lab_admin: [...ALL_READ, "members.manage", "audit.read", "chemicals.manage", "stock.manage"],
+  lab_admin: [...ALL_READ, "members.manage", "audit.read", "chemicals.manage", "stock.manage", "tokens.manage"],
   viewer: [...ALL_READ, "audit.read"],
 };
 
 /** Whether `role` holds `permission`. */
 export function can(role: Role, permission: Permission): boolean {
   return ROLE_PERMISSIONS[role].includes(permission);
+}
+
+/** Whether `role` holds every permission of `other` (a role never hands out more than it holds). */
+export function covers(role: Role, other: Role): boolean {
+  return ROLE_PERMISSIONS[other].every((p) => can(role, p));
 }

@@ -90,12 +90,14 @@ export async function ensureWorker(root, env, { runDir, name = "worker", restart
   step(`Job worker: starting lib/jobs/worker.ts (pg-boss; log ${logFile})…`);
   const offset = existsSync(logFile) ? statSync(logFile).size : 0;
   startRecorded(process.execPath, ["--conditions=react-server", "--import", "tsx", "lib/jobs/worker.ts"], { env, logFile, pidFile, cwd: root });
+  // `offset` counts bytes (statSync) and the log holds multi-byte characters (—, …): slice the bytes, not the decoded text.
+  const since = () => readFileSync(logFile).subarray(offset).toString("utf8");
   try {
-    await waitFor(async () => readFileSync(logFile, "utf8").slice(offset).includes(WORKER_READY), {
+    await waitFor(async () => since().includes(WORKER_READY), {
       what: `the job worker (see ${logFile})`, timeoutMs: 60_000, intervalMs: 200, stillRunning: () => liveRecordedProcess(pidFile) !== null,
     });
   } catch (error) {
-    throw new Error(`${error instanceof Error ? error.message : error}\n${readFileSync(logFile, "utf8").slice(offset).trimEnd().split("\n").slice(-20).join("\n")}`);
+    throw new Error(`${error instanceof Error ? error.message : error}\n${since().trimEnd().split("\n").slice(-20).join("\n")}`);
   }
   if (!liveRecordedProcess(pidFile)) throw new Error(`The job worker exited while starting:\n${tail(logFile)}`);
 }

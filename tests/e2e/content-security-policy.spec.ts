@@ -25,13 +25,17 @@ test("the pages run under the Content-Security-Policy without a violation", asyn
   await collect();
   await signIn(page, DEMO.admin);
   await collect();
-  for (const path of ["", "/inventory", "/inventory/chemicals", "/inventory/containers", "/inventory/reservations", "/inventory/alerts", "/inventory/import", "/members", "/audit"]) {
+  for (const path of ["", "/inventory", "/inventory/chemicals", "/inventory/containers", "/inventory/reservations", "/inventory/alerts", "/inventory/import", "/members", "/audit", "/settings/tokens"]) {
     const res = await page.goto(`/labs/kestrel-bay${path}`);
     expect(res?.status(), path).toBe(200);
     expect(res?.headers()["content-security-policy"]).toContain("frame-ancestors 'none'");
     await expect(page.getByRole("navigation", { name: "Lab sections" })).toBeVisible();
     await collect();
   }
+  // A form checked in the browser with the shared zod schema (zod must not probe for eval).
+  await page.getByRole("button", { name: "Create token" }).click();
+  await expect(page.getByTestId("error-token-name")).toBeVisible();
+  await collect();
   // A client-side navigation (React hydrated and running under the policy).
   await page.getByRole("navigation", { name: "Lab sections" }).getByRole("link", { name: "Overview" }).click();
   await expect(page).toHaveURL(/\/labs\/kestrel-bay$/);

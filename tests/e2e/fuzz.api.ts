@@ -32,6 +32,7 @@ import {
   reserveInputSchema,
 } from "../../inventory/schemas";
 import { acceptInvitationSchema, changePasswordSchema, changeRoleSchema, inviteMemberSchema } from "../../lib/members/schemas";
+import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 
 const LAB = "kestrel-bay";
@@ -253,6 +254,8 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     { route: "labs/[lab]/reservations", method: "POST", body: "json", schema: reserveInputSchema, example: () => ({ planRef: "fuzz-plan", note: "n", lines: [{ containerId: box.id, amount: "1", unit: "mg" }] }), params: { lab: LAB } },
     { route: "labs/[lab]/reservations/[reservationId]/consume", method: "POST", body: "json", schema: consumeInputSchema, example: () => ({ amount: "1", unit: "mg", note: "n" }), params: { lab: LAB, reservationId: randomId } },
     { route: "labs/[lab]/reservations/[reservationId]/release", method: "POST", body: "json", schema: releaseInputSchema, example: () => ({ reason: "not needed" }), params: { lab: LAB, reservationId: randomId } },
+    { route: "labs/[lab]/tokens", method: "POST", body: "json", schema: createApiTokenSchema, example: () => ({ name: "Fuzz token", role: "viewer", expiresInDays: 7 }), params: { lab: LAB } },
+    { route: "labs/[lab]/tokens/[tokenId]", method: "DELETE", body: "none", params: { lab: LAB, tokenId: randomId } },
   ];
 
   // The table covers every write route there is (a new route must be added here).

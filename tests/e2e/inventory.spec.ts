@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { expect, test } from "@playwright/test";
 import { DEMO, signIn } from "./support/auth";
+import { openSection } from "./support/nav";
 
 const LAB = "/labs/kestrel-bay";
 
@@ -14,7 +15,7 @@ test("the stockkeeper imports a CSV, finds a container by barcode and sees its l
   ].join("\n");
 
   await signIn(page, DEMO.stockkeeper);
-  await page.getByRole("navigation", { name: "Lab sections" }).getByRole("link", { name: "Containers", exact: true }).click();
+  await openSection(page, "Containers", "Inventory");
   await page.getByRole("link", { name: "Import CSV" }).click();
   await expect(page.getByRole("heading", { name: "Import containers from CSV" })).toBeVisible();
   await page.getByTestId("import-file").setInputFiles({ name: "containers.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
@@ -23,7 +24,7 @@ test("the stockkeeper imports a CSV, finds a container by barcode and sees its l
   await page.getByTestId("import-confirm").click();
   await expect(page.getByTestId("import-done")).toContainText("Imported 2 containers");
 
-  await page.getByRole("navigation", { name: "Lab sections" }).getByRole("link", { name: "Containers", exact: true }).click();
+  await openSection(page, "Containers", "Inventory");
   await page.getByTestId("container-search").fill(barcode);
   await expect(page.getByTestId("containers-count")).toContainText("1 container");
   await expect(page.getByTestId(`container-${barcode}`)).toContainText("Sodium chloride");

@@ -1,6 +1,7 @@
 import { expect, test } from "@playwright/test";
 import { SMTPServer } from "smtp-server";
 import { DEMO, signIn } from "./support/auth";
+import { openSection } from "./support/nav";
 
 /**
  * A lab admin invites someone; the app queues the e-mail, the job worker delivers it to an
@@ -33,7 +34,7 @@ test.afterAll(async () => {
 test("an invitation e-mail arrives and its link lets the invitee join and sign in", async ({ page }) => {
   const email = `new.chemist.${Date.now()}@kestrelbay.example`;
   await signIn(page, DEMO.admin);
-  await page.getByRole("navigation", { name: "Lab sections" }).getByRole("link", { name: "Members" }).click();
+  await openSection(page, "Members", "Settings");
   await page.getByLabel("E-mail", { exact: true }).fill(email);
   await page.getByLabel("Role", { exact: true }).selectOption("chemist");
   await page.getByRole("button", { name: "Send invitation" }).click();

@@ -1,12 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { PERMISSIONS, can, type Permission } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
-import { navFor } from "@/lib/navigation";
+import { isNavMenu, navFor, navMenuFor } from "@/lib/navigation";
 
 /**
  * The expected table, written out by hand from the roles in ../shared/PRODUCT.md
  * ("People and roles"): a viewer reads everything and changes nothing; a lab admin
- * manages members; a stockkeeper manages the catalogue and containers; a safety officer
+ * manages members and API tokens; a stockkeeper manages the catalogue and containers; a safety officer
  * and an auditor-viewer read the audit log. If a permission is added to lib/auth/permissions.ts
  * without a row here, the "covers every permission" test fails.
  */
@@ -19,6 +19,7 @@ const EXPECTED: Record<Permission, Role[]> = {
   "chemicals.manage": ["stockkeeper", "lab_admin"],
   "stock.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
   "stock.manage": ["stockkeeper", "lab_admin"],
+  "tokens.manage": ["lab_admin"],
 };
 
 describe("permission table", () => {
@@ -45,5 +46,17 @@ describe("permission table", () => {
     }
     expect(navFor("chemist").map((n) => n.label)).not.toContain("Members");
     expect(navFor("lab_admin").map((n) => n.label)).toContain("Members");
+    expect(navFor("lab_admin").map((n) => n.label)).toContain("API tokens");
+  });
+
+  it("the header groups inventory pages in one menu and shows a menu only when one of its links may be opened", () => {
+    const top = (role: (typeof ROLES)[number]) => navMenuFor(role).map((e) => (isNavMenu(e) ? `${e.label} ▾` : e.label));
+    expect(top("chemist")).toEqual(["Overview", "Inventory ▾"]);
+    expect(top("viewer")).toEqual(["Overview", "Inventory ▾", "Audit log"]);
+    expect(top("lab_admin")).toEqual(["Overview", "Inventory ▾", "Audit log", "Settings ▾"]);
+    const inventory = navMenuFor("chemist").find(isNavMenu)!;
+    expect(inventory.items.map((i) => i.label)).toEqual(["Containers", "Chemicals", "Reservations", "Shortfalls"]);
+    const stockkeeper = navMenuFor("stockkeeper").find(isNavMenu)!;
+    expect(stockkeeper.items.map((i) => i.label)).toContain("Import CSV");
   });
 });

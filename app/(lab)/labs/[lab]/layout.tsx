@@ -1,10 +1,10 @@
 import type { ReactNode } from "react";
 import { pageLabAccess } from "@/lib/auth/page-access";
 import { listMyLabs } from "@/lib/auth/access";
-import { navFor } from "@/lib/navigation";
+import { isNavMenu, navMenuFor } from "@/lib/navigation";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { AppShell } from "@/components/shell/app-shell";
-import { LabNav } from "@/components/shell/lab-nav";
+import { LabNav, type LabNavEntry } from "@/components/shell/lab-nav";
 import { LabSwitcher } from "@/components/shell/lab-switcher";
 
 export const dynamic = "force-dynamic";
@@ -13,7 +13,10 @@ export default async function LabLayout({ children, params }: { children: ReactN
   const { lab: slug } = await params;
   const access = await pageLabAccess(slug);
   const labs = await listMyLabs(access.userId);
-  const links = navFor(access.role).map((item) => ({ label: item.label, href: `/labs/${access.lab.slug}${item.path}` }));
+  const href = (path: string) => `/labs/${access.lab.slug}${path}`;
+  const entries: LabNavEntry[] = navMenuFor(access.role).map((e) =>
+    isNavMenu(e) ? { label: e.label, items: e.items.map((i) => ({ label: i.label, href: href(i.path) })) } : { label: e.label, href: href(e.path) },
+  );
   return (
     <AppShell
       user={access.user}
@@ -21,7 +24,7 @@ export default async function LabLayout({ children, params }: { children: ReactN
       lab={
         <>
           <LabSwitcher current={access.lab.slug} labs={labs} />
-          <LabNav links={links} />
+          <LabNav entries={entries} />
         </>
       }
     >

@@ -14,7 +14,7 @@ export default async function LabOverviewPage({ params }: { params: Promise<{ la
   return (
     <div className="flex flex-col gap-6">
       <div>
-        <p className="text-sm uppercase tracking-wide text-copper">Lab overview</p>
+        <p className="text-sm uppercase tracking-wide text-ink-faint">Lab overview</p>
         <h1 data-testid="lab-name">{access.lab.name}</h1>
         <p className="mt-1 text-sm text-ink-soft">
           You are <span className="font-medium">{ROLE_LABELS[access.role].toLowerCase()}</span> here. The lab has{" "}

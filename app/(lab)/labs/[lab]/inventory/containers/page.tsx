@@ -26,7 +26,7 @@ export default async function ContainersPage({ params }: { params: Promise<{ lab
         actions={
           <>
             {canManage && (
-              <Link href={`/labs/${access.lab.slug}/inventory/import`} className="rounded-md bg-copper px-3 py-1.5 text-sm font-medium text-paper-card no-underline hover:bg-copper-dark hover:no-underline">
+              <Link href={`/labs/${access.lab.slug}/inventory/import`} className="rounded-md bg-accent px-3 py-1.5 text-sm font-medium text-paper-card no-underline hover:bg-accent-dark hover:no-underline">
                 Import CSV
               </Link>
             )}
