@@ -40,7 +40,7 @@ export interface VialMapProps {
   highlightRuns?: readonly number[];
 }
 
-const SELECT = "#2f4a6e"; // deep slate blue: Tareline's action colour
+const SELECT = "#2f4a6d"; // accent (tailwind.config.ts): the deep slate blue of actions and focus
 
 /** The fill patterns of the given temperature groups. */
 function Patterns({ groups, suffix }: { groups: readonly number[]; suffix: string }) {

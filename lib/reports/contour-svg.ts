@@ -147,7 +147,7 @@ export function contourSvg(grid: SurfaceGrid, options: ContourOptions = {}): str
     const j = indexOf(grid.yNatural, options.optimum[grid.yFactor] ?? NaN);
     if (i !== null && j !== null) {
       const [x, y] = map(i, j);
-      parts.push(`<path d="M${x - 6},${y} H${x + 6} M${x},${y - 6} V${y + 6}" stroke="#2f4a6e" stroke-width="2.2"/><circle cx="${x}" cy="${y}" r="4.5" fill="none" stroke="#2f4a6e" stroke-width="1.6"/>`);
+      parts.push(`<path d="M${x - 6},${y} H${x + 6} M${x},${y - 6} V${y + 6}" stroke="#2f4a6d" stroke-width="2.2"/><circle cx="${x}" cy="${y}" r="4.5" fill="none" stroke="#2f4a6d" stroke-width="1.6"/>`);
     }
   }
   parts.push(`</g>`);

@@ -12,8 +12,8 @@ export const SHEET_PAGE: { pageSize: PageSize; pageMargins: [number, number, num
 };
 
 export const SEVERITY_STYLE = {
-  ok: { fg: "#1f7a72", bg: "#dcefeb" },
-  warning: { fg: "#a86a0c", bg: "#f7e8c8" },
+  ok: { fg: "#1a6b64", bg: "#dcefeb" },
+  warning: { fg: "#8a5607", bg: "#f7e8c8" },
   blocking: { fg: "#9c3324", bg: "#f4d9d3" },
 } as const;
 

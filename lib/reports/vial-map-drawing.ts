@@ -41,7 +41,7 @@ export function groupStyle(g: number): GroupStyle {
 }
 
 /** Ink and paper of the sheets (tailwind.config.ts). */
-export const SHEET_COLORS = { ink: "#2a2a2d", soft: "#4b4a4f", faint: "#7b7770", line: "#d9cfbd", paper: "#fbf8f1", empty: "#ebe3d3" } as const;
+export const SHEET_COLORS = { ink: "#2a2a2d", soft: "#4b4a4f", faint: "#625e57", line: "#d9cfbd", paper: "#fbf8f1", empty: "#ebe3d3" } as const;
 
 /** Geometry of one block drawing (user units; points in the PDF, px on screen). */
 export interface BlockGeometry {
