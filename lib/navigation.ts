@@ -24,10 +24,11 @@ export type NavEntry = NavItem | NavMenu;
 
 export const isNavMenu = (entry: NavEntry): entry is NavMenu => "items" in entry;
 
-/** The lab settings pages (under /settings, plus members), shown to lab admins. */
+/** The lab settings pages (under /settings, plus members): the settings overview for everyone (read-only for most), members and tokens for lab admins. */
 export const SETTINGS_NAV: NavMenu = {
   label: "Settings",
   items: [
+    { label: "Lab settings", path: "/settings", permission: "settings.read" },
     { label: "Members", path: "/members", permission: "members.manage" },
     { label: "API tokens", path: "/settings/tokens", permission: "tokens.manage" },
   ],
@@ -35,6 +36,7 @@ export const SETTINGS_NAV: NavMenu = {
 
 export const LAB_NAV: readonly NavEntry[] = [
   { label: "Overview", path: "", permission: "lab.read" },
+  { label: "Studies", path: "/studies", permission: "studies.read" },
   {
     label: "Inventory",
     items: [

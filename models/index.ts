@@ -16,10 +16,13 @@ import { Container } from "./container";
 import { Reservation } from "./reservation";
 import { StockLedgerEntry } from "./stock-ledger-entry";
 import { ApiToken } from "./api-token";
+import { Study } from "./study";
+import { Plan } from "./plan";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 export { ApiToken };
+export { Study, Plan };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -35,6 +38,8 @@ export function initModels(sequelize: Sequelize): void {
   Reservation.initModel(sequelize);
   StockLedgerEntry.initModel(sequelize);
   ApiToken.initModel(sequelize);
+  Study.initModel(sequelize);
+  Plan.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -46,4 +51,8 @@ export function initModels(sequelize: Sequelize): void {
   Chemical.hasMany(Container, { foreignKey: "chemicalId", as: "containers" });
   Reservation.belongsTo(Container, { foreignKey: "containerId", as: "container" });
   ApiToken.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
+  Study.belongsTo(User, { foreignKey: "authorId", as: "author" });
+  Plan.belongsTo(User, { foreignKey: "authorId", as: "author" });
+  Plan.belongsTo(Study, { foreignKey: "studyId", as: "study" });
+  Study.hasMany(Plan, { foreignKey: "studyId", as: "plans" });
 }

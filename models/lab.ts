@@ -6,6 +6,8 @@ export class Lab extends Model<InferAttributes<Lab>, InferCreationAttributes<Lab
   declare slug: string;
   declare name: string;
   declare settings: CreationOptional<Record<string, unknown>>;
+  /** Optimistic lock of `settings` (lib/lab-settings): every saved change adds one. */
+  declare settingsVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -16,6 +18,7 @@ export class Lab extends Model<InferAttributes<Lab>, InferCreationAttributes<Lab
         slug: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(200), allowNull: false },
         settings: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+        settingsVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -7,11 +7,11 @@ const styles: Record<Variant, string> = {
   danger: "border border-blocks/40 bg-paper-card text-blocks hover:bg-blocks-bg",
 };
 
+/** The classes of a button, for links that look like one (e.g. "New study"). */
+export function buttonClass(variant: Variant = "primary", className = ""): string {
+  return `inline-flex items-center justify-center rounded-md px-3 py-1.5 text-sm font-medium no-underline transition-colors hover:no-underline disabled:cursor-not-allowed disabled:opacity-50 ${styles[variant]} ${className}`;
+}
+
 export function Button({ variant = "primary", className = "", ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
-  return (
-    <button
-      {...props}
-      className={`inline-flex items-center justify-center rounded-md px-3 py-1.5 text-sm font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-50 ${styles[variant]} ${className}`}
-    />
-  );
+  return <button {...props} className={buttonClass(variant, className)} />;
 }

@@ -11,7 +11,7 @@ import { factorSchema } from "../doe/factors";
 import { hazardFlagFields } from "../hazards/hazard-flags";
 import { isoDateSchema } from "../hazards/iso-date";
 import { containerDateFields } from "../hazards/plan-cautions/schema";
-import { equipmentSchema, labThresholdsSchema } from "../hazards/thresholds";
+import { blockSchema, equipmentSchema, labThresholdsSchema } from "../hazards/thresholds";
 import { vesselTypeSchema, type VesselType } from "../hazards/vessels";
 
 /**
@@ -308,6 +308,8 @@ export const planDocumentSchema = z
       .transform((v, ctx): string | VesselType => (typeof v === "string" ? v : refineWith(v, vesselTypeSchema, ctx))),
     thresholds: labThresholdsSchema,
     equipment: equipmentSchema,
+    /** The heating or cooling block the runs sit in (optional; `equipment` holds its temperature limits). */
+    block: blockSchema.optional(),
     dispensing: dispensingSchema,
     /** ISO date used for container ages in the cautions (default today). */
     now: isoDateSchema.optional(),

@@ -3,7 +3,7 @@ import type { FieldIssue } from "@/lib/errors/app-error";
 
 export type JsonResult<T> = { ok: true; data: T } | { ok: false; status: number; error: { code: string; message: string; issues: FieldIssue[] } };
 
-export async function postJson<T = unknown>(url: string, body: unknown, method: "POST" | "PATCH" | "DELETE" = "POST"): Promise<JsonResult<T>> {
+export async function postJson<T = unknown>(url: string, body: unknown, method: "POST" | "PUT" | "PATCH" | "DELETE" = "POST"): Promise<JsonResult<T>> {
   let res: Response;
   try {
     res = await fetch(url, { method, headers: { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });

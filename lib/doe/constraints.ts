@@ -9,7 +9,7 @@ import { AppError } from "../errors/app-error";
 import type { Factor } from "./factors";
 
 /** One constraint as written in the input: `{ "expr": "temperature + 20*time <= 400" }`. */
-export const constraintSchema = z.object({ expr: z.string().min(1) });
+export const constraintSchema = z.object({ expr: z.string().min(1).max(500) });
 export type ConstraintInput = z.output<typeof constraintSchema>;
 
 /** Σ coefficients[i]·u_i ≤ bound, in natural units. */

@@ -5,14 +5,12 @@
  * blocks, decodes to natural units and sets a seeded random run order.
  */
 import { AppError, parseOrThrow } from "../errors/app-error";
-import { buildTerms, isSquareTerm } from "../stats/model-terms";
 import { boxBehnkenCoded } from "./box-behnken";
 import { axialPointsCoded, ccdAlpha } from "./central-composite";
 import { blockOfRow, chooseBlockWords } from "./blocking";
-import { parseConstraints, satisfiesAll } from "./constraints";
 import { designInputSchema, type DesignInput, type DesignInputRaw } from "./design-schema";
-import { candidateMatrix, fedorovExchange, gridCandidates } from "./d-optimal";
-import { codeValue, decodeValue, factorLetter, type Factor } from "./factors";
+import { dOptimalPoints, type DOptimalPointsOptions, type DOptimalSummary } from "./d-optimal-design";
+import { codeValue, decodeValue, factorLetter } from "./factors";
 import { fullFactorialCoded } from "./factorial";
 import {
   aliasStructure,
@@ -40,14 +38,7 @@ export interface DesignRun {
   natural: Record<string, number>;
 }
 
-/** Summary of a D-optimal search. */
-export interface DOptimalSummary {
-  model: string[];
-  logDet: number;
-  dEfficiency: number;
-  candidates: number;
-  candidatesRemoved: number;
-}
+export type { DOptimalSummary } from "./d-optimal-design";
 
 /** The `design` verb's output, with added fields. */
 export interface DesignOutput {
@@ -102,35 +93,6 @@ function factorialPoints(input: DesignInput, k: number, frac: FractionalFactoria
   return { rows, blockWords };
 }
 
-function dOptimalPoints(input: DesignInput, factors: readonly Factor[]): { points: Point[]; summary: DOptimalSummary } {
-  const k = factors.length;
-  const names = factors.map((f) => f.name);
-  const terms = buildTerms(input.model, names);
-  const constraints = parseConstraints(input.constraints, factors);
-  let coded: number[][];
-  if (input.candidates) {
-    coded = input.candidates.map((c, i) =>
-      factors.map((f) => {
-        const v = c[f.name]!;
-        if (f.scale === "log" && !(v > 0)) throw AppError.field(`candidates.${i}.${f.name}`, "must be positive for a log-scale factor");
-        return codeValue(f, v);
-      }),
-    );
-  } else {
-    const levels = input.levels ?? (terms.some((t) => isSquareTerm(t) || t.exponents.some((e) => e >= 2)) ? 3 : 2);
-    coded = gridCandidates(k, levels);
-  }
-  const total = coded.length;
-  const kept = coded.filter((x) => satisfiesAll(constraints, x.map((v, i) => decodeValue(factors[i]!, v))));
-  const F = candidateMatrix(terms, kept);
-  const res = fedorovExchange(F, terms.length, { runs: input.runs!, seed: input.seed ?? 1, starts: input.starts });
-  const points: Point[] = res.indices.map((i) => ({ coded: [...kept[i]!], kind: "optimal", block: 1 }));
-  return {
-    points,
-    summary: { model: terms.map((t) => t.name), logDet: res.logDet, dEfficiency: res.dEfficiency, candidates: kept.length, candidatesRemoved: total - kept.length },
-  };
-}
-
 /**
  * Generates a design (the `design` verb): full factorial 2^k (k ≤ 10), fractional
  * factorial 2^(k−p) with given or minimum-aberration generators, central composite
@@ -138,12 +100,13 @@ function dOptimalPoints(input: DesignInput, factors: readonly Factor[]): { point
  * inscribed with the axial points at the natural limits), Box–Behnken (k = 3…7) or
  * D-optimal (modified Fedorov exchange over a constrained candidate set); with centre
  * points, replicates, blocks, a hard-to-change factor and a seeded run order.
- * Accepts raw input (validated here) or an already parsed `DesignInput`.
+ * Accepts raw input (validated here) or an already parsed `DesignInput`; `options.exclude`
+ * removes the candidates of a d-optimal design that the caller's test blocks.
  * Throws an invalid-input AppError naming the field for bad input, and an
  * "infeasible" AppError when constraints leave too few candidates.
  * Example: generateDesign({ factors: [...], design: "full-factorial", seed: 7 })
  */
-export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
+export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalPointsOptions = {}): DesignOutput {
   const input = parseOrThrow(designInputSchema, raw, "The design input is not valid.");
   const factors = input.factors;
   const k = factors.length;
@@ -213,14 +176,8 @@ export function generateDesign(raw: unknown | DesignInputRaw): DesignOutput {
       break;
     }
     case "d-optimal": {
-      if (nCentre > 0) {
-        const centreNatural = factors.map((f) => decodeValue(f, 0));
-        if (!satisfiesAll(parseConstraints(input.constraints, factors), centreNatural)) {
-          throw AppError.field("centerPoints", "the centre point violates the constraints");
-        }
-      }
-      const d = dOptimalPoints(input, factors);
-      points = d.points;
+      const d = dOptimalPoints(input, nCentre, options);
+      points = d.coded.map((coded) => ({ coded, kind: "optimal", block: 1 }));
       dSummary = d.summary;
       centre(nCentre, () => 1);
       break;

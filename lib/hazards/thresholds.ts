@@ -82,3 +82,17 @@ export type Equipment = z.output<typeof equipmentSchema>;
 
 /** The default equipment limits. */
 export const DEFAULT_EQUIPMENT: Equipment = equipmentSchema.parse({});
+
+/** Positions of a heating or cooling block: the usual formats of 24, 48 or 96 vials (common practice). */
+export const BLOCK_POSITIONS = [24, 48, 96] as const;
+
+/** The block a plan runs on (its temperature limits are the plan's `equipment`). */
+export const blockSchema = z.object({
+  /** The lab's identifier of the block, e.g. "block-al-24". */
+  id: z.string().min(1).max(80),
+  name: z.string().min(1).max(200),
+  /** Positions of the block: the vial map's grid. */
+  positions: z.union([z.literal(24), z.literal(48), z.literal(96)], { message: "must be 24, 48 or 96" }),
+});
+
+export type Block = z.output<typeof blockSchema>;

@@ -71,5 +71,7 @@ test("a bad token name is shown on its field; members other than lab admins cann
   await page.context().clearCookies();
   await signIn(page, DEMO.stockkeeper);
   expect((await page.goto(`${LAB}/settings/tokens`))?.status()).toBe(404);
-  expect((await page.goto(`${LAB}/settings`))?.status()).toBe(404);
+  // The settings overview is read-only for them (lib/lab-settings), with no link to the tokens.
+  expect((await page.goto(`${LAB}/settings`))?.status()).toBe(200);
+  await expect(page.getByRole("link", { name: "API tokens" })).toHaveCount(0);
 });

@@ -25,7 +25,7 @@ test("the pages run under the Content-Security-Policy without a violation", asyn
   await collect();
   await signIn(page, DEMO.admin);
   await collect();
-  for (const path of ["", "/inventory", "/inventory/chemicals", "/inventory/containers", "/inventory/reservations", "/inventory/alerts", "/inventory/import", "/members", "/audit", "/settings/tokens"]) {
+  for (const path of ["", "/inventory", "/inventory/chemicals", "/inventory/containers", "/inventory/reservations", "/inventory/alerts", "/inventory/import", "/members", "/audit", "/studies", "/studies/new", "/settings", "/settings/tokens"]) {
     const res = await page.goto(`/labs/kestrel-bay${path}`);
     expect(res?.status(), path).toBe(200);
     expect(res?.headers()["content-security-policy"]).toContain("frame-ancestors 'none'");

@@ -33,10 +33,13 @@ import {
 } from "../../inventory/schemas";
 import { acceptInvitationSchema, changePasswordSchema, changeRoleSchema, inviteMemberSchema } from "../../lib/members/schemas";
 import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
+import { settingsUpdateSchema } from "../../lib/lab-settings/schemas";
+import { planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
+import { studyCreateSchema, studyUpdateSchema } from "../../lib/studies/schemas";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 
 const LAB = "kestrel-bay";
-/** How many generated requests each route gets (19 routes today → about 1300 requests). */
+/** How many generated requests each route gets (27 routes today → about 1900 requests). */
 const PER_ROUTE = 70;
 const SEED = 20261202;
 
@@ -256,6 +259,15 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     { route: "labs/[lab]/reservations/[reservationId]/release", method: "POST", body: "json", schema: releaseInputSchema, example: () => ({ reason: "not needed" }), params: { lab: LAB, reservationId: randomId } },
     { route: "labs/[lab]/tokens", method: "POST", body: "json", schema: createApiTokenSchema, example: () => ({ name: "Fuzz token", role: "viewer", expiresInDays: 7 }), params: { lab: LAB } },
     { route: "labs/[lab]/tokens/[tokenId]", method: "DELETE", body: "none", params: { lab: LAB, tokenId: randomId } },
+    // Studies, plans and lab settings (issue 10): ids that match no record, so only refusals are exercised.
+    { route: "labs/[lab]/studies", method: "POST", body: "json", schema: studyCreateSchema, example: () => ({ name: "Fuzz study", goal: "g", targetProduct: "t", responses: [{ name: "yield", unit: "%", goal: "target", target: 90, low: 80, high: 100 }] }), params: { lab: LAB } },
+    { route: "labs/[lab]/studies/[studyId]", method: "PATCH", body: "json", schema: studyUpdateSchema, example: () => ({ version: 1, name: "Fuzz", responses: [{ name: "yield", unit: "%", goal: "maximize" }] }), params: { lab: LAB, studyId: randomId } },
+    { route: "labs/[lab]/studies/[studyId]", method: "DELETE", body: "none", params: { lab: LAB, studyId: randomId } },
+    { route: "labs/[lab]/studies/[studyId]/plans", method: "POST", body: "json", schema: planCreateSchema, example: () => ({ document: { name: "Fuzz plan" } }), params: { lab: LAB, studyId: randomId } },
+    { route: "labs/[lab]/plans/[planId]", method: "PUT", body: "json", schema: planUpdateSchema, example: () => ({ document: { name: "Fuzz plan" }, version: 1 }), params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/[planId]", method: "DELETE", body: "none", params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/[planId]/duplicate", method: "POST", body: "json", schema: planDuplicateSchema, example: () => ({ name: "Fuzz copy" }), params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/settings/[section]", method: "PUT", body: "json", schema: settingsUpdateSchema("dispensing"), example: () => ({ version: 1, value: { minPipetteVolumeUl: 10, overagePercent: 10, deadVolumeUl: 50, minWeighMassMg: 82, maxStockVolumeMl: 25, stockFillFraction: 0.8 } }), params: { lab: LAB, section: "dispensing" } },
   ];
 
   // The table covers every write route there is (a new route must be added here).

@@ -7,12 +7,13 @@ import { DEMO, signIn } from "./support/auth";
  * The header shows links and menus (▾); the inventory pages sit in one menu.
  */
 const EXPECTED_NAV: Record<keyof typeof DEMO, string[]> = {
-  chemist: ["Overview", "Inventory ▾"],
-  safety: ["Overview", "Inventory ▾", "Audit log"],
-  stockkeeper: ["Overview", "Inventory ▾"],
-  admin: ["Overview", "Inventory ▾", "Audit log", "Settings ▾"],
-  viewer: ["Overview", "Inventory ▾", "Audit log"],
-  harrow: ["Overview", "Inventory ▾"],
+  // Everyone reads studies and the lab settings (a read-only overview for most roles).
+  chemist: ["Overview", "Studies", "Inventory ▾", "Settings ▾"],
+  safety: ["Overview", "Studies", "Inventory ▾", "Audit log", "Settings ▾"],
+  stockkeeper: ["Overview", "Studies", "Inventory ▾", "Settings ▾"],
+  admin: ["Overview", "Studies", "Inventory ▾", "Audit log", "Settings ▾"],
+  viewer: ["Overview", "Studies", "Inventory ▾", "Audit log", "Settings ▾"],
+  harrow: ["Overview", "Studies", "Inventory ▾", "Settings ▾"],
 };
 
 for (const [role, email] of Object.entries(DEMO) as Array<[keyof typeof DEMO, string]>) {
@@ -33,7 +34,7 @@ test("the Inventory menu opens with its pages, closes on Escape, and its links w
   const menu = nav.getByRole("button", { name: "Inventory" });
   await menu.click();
   await expect(menu).toHaveAttribute("aria-expanded", "true");
-  await expect(nav.getByRole("link")).toHaveText(["Overview", "Containers", "Chemicals", "Reservations", "Shortfalls", "Import CSV"]);
+  await expect(nav.getByRole("link")).toHaveText(["Overview", "Studies", "Containers", "Chemicals", "Reservations", "Shortfalls", "Import CSV"]);
   await page.keyboard.press("Escape");
   await expect(menu).toHaveAttribute("aria-expanded", "false");
   await expect(nav.getByRole("link", { name: "Chemicals" })).toBeHidden();
@@ -56,7 +57,7 @@ test("the header fits on one line at 1280 px, and on a 390-px phone every sectio
   expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
   const nav = page.getByRole("navigation", { name: "Lab sections" });
   await nav.getByRole("button", { name: "Menu" }).click();
-  await expect(nav.getByRole("link")).toHaveText(["Overview", "Containers", "Chemicals", "Reservations", "Shortfalls", "Import CSV", "Audit log", "Members", "API tokens"]);
+  await expect(nav.getByRole("link")).toHaveText(["Overview", "Studies", "Containers", "Chemicals", "Reservations", "Shortfalls", "Import CSV", "Audit log", "Lab settings", "Members", "API tokens"]);
   await nav.getByRole("link", { name: "API tokens" }).click();
   await expect(page.getByRole("heading", { name: "API tokens", level: 1 })).toBeVisible();
 });

@@ -19,6 +19,18 @@ const EXPECTED: Record<Permission, Role[]> = {
   "chemicals.manage": ["stockkeeper", "lab_admin"],
   "stock.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
   "stock.manage": ["stockkeeper", "lab_admin"],
+  // Studies, plans and lab settings (issue 10): chemists and lab admins plan; everyone reads;
+  // safety officers review and edit the hazard thresholds; lab admins edit equipment and limits.
+  "studies.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "studies.manage": ["chemist", "lab_admin"],
+  "plans.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "plans.edit": ["chemist", "lab_admin"],
+  "plans.review": ["safety_officer"],
+  "plans.release": ["chemist", "lab_admin"],
+  "plans.execute": ["chemist", "lab_admin"],
+  "settings.read": ["chemist", "safety_officer", "stockkeeper", "lab_admin", "viewer"],
+  "settings.equipment": ["lab_admin"],
+  "settings.thresholds": ["safety_officer"],
   "tokens.manage": ["lab_admin"],
 };
 
@@ -51,9 +63,11 @@ describe("permission table", () => {
 
   it("the header groups inventory pages in one menu and shows a menu only when one of its links may be opened", () => {
     const top = (role: (typeof ROLES)[number]) => navMenuFor(role).map((e) => (isNavMenu(e) ? `${e.label} ▾` : e.label));
-    expect(top("chemist")).toEqual(["Overview", "Inventory ▾"]);
-    expect(top("viewer")).toEqual(["Overview", "Inventory ▾", "Audit log"]);
-    expect(top("lab_admin")).toEqual(["Overview", "Inventory ▾", "Audit log", "Settings ▾"]);
+    expect(top("chemist")).toEqual(["Overview", "Studies", "Inventory ▾", "Settings ▾"]);
+    expect(top("viewer")).toEqual(["Overview", "Studies", "Inventory ▾", "Audit log", "Settings ▾"]);
+    expect(top("lab_admin")).toEqual(["Overview", "Studies", "Inventory ▾", "Audit log", "Settings ▾"]);
+    // Everyone opens the lab settings overview (read-only unless the role edits a section); members and tokens are the lab admin's.
+    expect(navMenuFor("chemist").filter(isNavMenu).find((m) => m.label === "Settings")!.items.map((i) => i.label)).toEqual(["Lab settings"]);
     const inventory = navMenuFor("chemist").find(isNavMenu)!;
     expect(inventory.items.map((i) => i.label)).toEqual(["Containers", "Chemicals", "Reservations", "Shortfalls"]);
     const stockkeeper = navMenuFor("stockkeeper").find(isNavMenu)!;

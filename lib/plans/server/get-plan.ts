@@ -1,0 +1,16 @@
+import "server-only";
+import type { Transaction } from "sequelize";
+import { planView, type PlanView } from "../view";
+import { evaluateStoredPlan } from "./evaluate-stored-plan";
+import { findPlan, planSummary } from "./common";
+
+/**
+ * One plan of the lab as `GET /plans/{plan}` shows it: the stored document, the run sheet
+ * and cautions computed from it as the `plan` verb does, and the values it was computed with.
+ * @throws AppError not_found (another lab's plan, or none).
+ */
+export async function getPlan(opts: { labId: string; planId: string }, t?: Transaction): Promise<PlanView> {
+  const plan = await findPlan(opts, t);
+  const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: plan.document }, t);
+  return planView(planSummary(plan), plan.document, evaluation);
+}
