@@ -19,6 +19,7 @@ import { GHS_PICTOGRAM_NAMES, type GhsPictogram } from "../hazards/ghs-pictogram
 import type { PlanCautionReport } from "../hazards/plan-cautions";
 import type { Equipment, LabThresholds } from "../hazards/thresholds";
 import { vialMap, type VialMap } from "../plans/vial-map";
+import type { PlanSignature } from "../plans/view";
 import { dispenseRows } from "./dispense-rows";
 import { celsius, fixed, microlitres, milligrams, significant, utcMinute } from "./format";
 import { renderPdf } from "./pdf";
@@ -27,18 +28,8 @@ import type { ChemicalStatements } from "./plan-hazards";
 import { SEVERITY_STYLE, sheetStyles, SHEET_PAGE, tableLayout } from "./sheet-style";
 import { vialBlockSvg, vialLegendSvg } from "./vial-map-drawing";
 
-/** The e-signature as the plan API returns it (CONTRACT.md `signature`). */
-export interface PrepSheetSignature {
-  signerName: string;
-  /** ISO instant. */
-  signedAt: string;
-  /** What the signature means, e.g. "approved for execution as planned". */
-  meaning: string;
-  /** The content hash the signature is bound to. */
-  contentHash: string;
-  /** False once the plan's content no longer has that hash. */
-  valid: boolean;
-}
+/** The e-signature as the plan API returns it (CONTRACT.md `signature`; lib/plans/view.ts). */
+export type PrepSheetSignature = PlanSignature;
 
 export interface PrepSheetInput {
   plan: {
@@ -57,7 +48,7 @@ export interface PrepSheetInput {
   runSheet: RunSheet;
   /** The cautions part of the `plan` verb's output. */
   cautions: Pick<PlanCautionReport, "cautions" | "signOffRequired" | "signOffReasons" | "releasable"> & { perRun?: PlanCautionReport["perRun"] };
-  /** Positions of the heating block used (24, 48 or 96). */
+  /** Positions of the heating block used (24, 48 or 96): the plan document's `block.positions`. */
   blockPositions: number;
   /** Statements and pictograms of the plan's chemicals (`planChemicalHazards(document)`). */
   chemicals?: ChemicalStatements[];
