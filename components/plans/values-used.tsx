@@ -31,7 +31,7 @@ const v = (x: number, unit: string) => `${significant(x, 4)} ${unit}`;
 export function ValuesUsed({ computedWith, settingsHref, issues = [], testId = "values-used" }: { computedWith: PlanComputedWith; settingsHref?: string; issues?: readonly string[]; testId?: string }) {
   const { vessel, block, equipment, dispensing: d, thresholds: t } = computedWith;
   return (
-    <div className="flex flex-col gap-3" data-testid={testId}>
+    <div className="@container flex flex-col gap-3" data-testid={testId}>
       <p className="text-sm text-ink-soft">
         The plan is computed with these values. They come from the lab&apos;s settings
         {settingsHref ? (
@@ -49,7 +49,7 @@ export function ValuesUsed({ computedWith, settingsHref, issues = [], testId = "
           ))}
         </ul>
       )}
-      <div className="grid gap-3 lg:grid-cols-2">
+      <div className="grid gap-3 @2xl:grid-cols-2">
         <Group title="Vessel" testId={`${testId}-vessel`}>
           {typeof vessel === "string" ? (
             <Row label="Type">{vessel}</Row>

@@ -1,4 +1,5 @@
 import { randomUUID } from "node:crypto";
+import { readFileSync } from "node:fs";
 import { expect, test, type Page } from "@playwright/test";
 import { DEMO, signIn } from "./support/auth";
 import { LAB, buildPlan, masses, newStudy, planCount, upToDate } from "./support/plan-editor";
@@ -36,7 +37,9 @@ test("a chemist builds a Box–Behnken plan from the catalogue, sees amounts and
   const baseBefore = await masses(page, "potassium");
   await page.getByRole("tab", { name: "Cautions" }).click();
   await expect(page.getByTestId("preview-cautions-signoff")).toHaveText("No sign-off needed");
-  await page.screenshot({ path: testInfo.outputPath("plan-editor.png"), fullPage: true });
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.screenshot({ path: testInfo.outputPath("plan-editor.png") });
+  await page.screenshot({ path: testInfo.outputPath("plan-editor-full.png"), fullPage: true });
 
   // A wider range: the base's largest mass follows its equivalents, and a 140 °C run needs sign-off.
   await page.getByTestId("factor-1-high").fill("3.5");
@@ -47,7 +50,8 @@ test("a chemist builds a Box–Behnken plan from the catalogue, sees amounts and
   expect(Math.max(...baseAfter) / Math.max(...baseBefore)).toBeCloseTo(3.5 / 3, 2);
   await page.getByRole("tab", { name: "Cautions" }).click();
   await expect(page.getByTestId("preview-cautions-signoff")).toHaveText("Needs a safety officer's sign-off");
-  await page.screenshot({ path: testInfo.outputPath("plan-editor-wider-range.png"), fullPage: true });
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.screenshot({ path: testInfo.outputPath("plan-editor-wider-range.png") });
 
   // Save: the plan page shows the saved plan; after a reload it is the same plan.
   await page.getByTestId("save-plan").click();
@@ -154,4 +158,34 @@ test("leaving with unsaved changes asks first", async ({ page }) => {
   const d = await dialog;
   expect(d.type()).toBe("beforeunload");
   await d.dismiss();
+});
+
+test("a save over someone else's newer version is refused (409) and keeps the chemist's edits to re-apply", async ({ page }) => {
+  await signIn(page, DEMO.chemist);
+  const studyId = await newStudy(page);
+  const example = JSON.parse(readFileSync(new URL("../../examples/plan-suzuki.json", import.meta.url), "utf8")) as Record<string, unknown>;
+  const planId = await page.evaluate(
+    async ({ url, document }) => ((await (await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ document }) })).json()) as { plan: { id: string } }).plan.id,
+    { url: `/api/labs/${LAB}/studies/${studyId}/plans`, document: example },
+  );
+  await page.goto(`/labs/${LAB}/studies/${studyId}/plans/${planId}/edit`);
+  await upToDate(page);
+  // Someone else saves version 2 meanwhile.
+  const status = await page.evaluate(
+    async ({ url, document }) => (await fetch(url, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ document: { ...document, name: "Their name" }, version: 1 }) })).status,
+    { url: `/api/labs/${LAB}/plans/${planId}`, document: example },
+  );
+  expect(status).toBe(200);
+  await page.getByTestId("plan-name").fill("My name");
+  await page.getByTestId("save-plan").click();
+  await expect(page.getByTestId("save-conflict")).toContainText("Version 2");
+  await expect(page.getByTestId("plan-name")).toHaveValue("My name");
+  await page.getByRole("button", { name: "Load their version" }).click();
+  await expect(page.getByTestId("plan-name")).toHaveValue("Their name");
+  await page.getByRole("button", { name: "Re-apply my edits" }).click();
+  await expect(page.getByTestId("plan-name")).toHaveValue("My name");
+  await page.getByTestId("save-plan").click();
+  await expect(page.getByTestId("plan-saved")).toBeVisible();
+  await expect(page.getByTestId("plan-name")).toHaveText("My name");
+  await expect(page.getByTestId("plan-version")).toHaveText("version 3");
 });

@@ -15,29 +15,18 @@ import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { run as planVerb } from "@/lib/cli/verbs/plan";
 import { AuditEntry, Plan } from "@/lib/server/models";
 import { SEED } from "../support/integration";
+import { routeCtx, signInAs } from "../support/fake-session";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
 const planOne = await import("@/app/api/labs/[lab]/plans/[planId]/route");
 const preview = await import("@/app/api/labs/[lab]/plans/preview/route");
 
-const as = (u: { id: string; email: string }) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
+const as = signInAs;
 const lab = SEED.labs.kestrel.slug;
-const ctx = (labSlug: string = lab, extra: Record<string, string> = {}) => ({ params: Promise.resolve({ lab: labSlug, ...extra }) });
+const ctx = (labSlug: string = lab) => routeCtx({}, labSlug);
 const req = (path: string, method = "GET", body?: unknown) =>
   new Request(`http://test.invalid${path}`, { method, headers: body === undefined ? {} : { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });
 type Json = Record<string, unknown>;
@@ -51,7 +40,7 @@ beforeAll(async () => {
   studyId = ((await res.json()) as { study: { id: string } }).study.id;
 });
 beforeEach(() => {
-  who.user = null;
+  signInAs(null);
 });
 
 describe("POST /plans/preview", () => {
@@ -73,9 +62,9 @@ describe("POST /plans/preview", () => {
     expect({ cautions: p.cautions, signOffRequired: p.signOffRequired, signOffReasons: p.signOffReasons, releasable: p.releasable, perRun: p.perRun, notice: p.notice }).toEqual({ cautions, signOffRequired, signOffReasons, releasable, perRun, notice });
 
     // Saving the previewed document gives the same hash, run sheet and cautions.
-    const created = await studyPlans.POST(req("/x", "POST", { document: p.document }), { params: Promise.resolve({ lab, studyId }) });
+    const created = await studyPlans.POST(req("/x", "POST", { document: p.document }), routeCtx({ studyId }));
     const { plan } = (await created.json()) as { plan: { id: string } };
-    const got = (await (await planOne.GET(req("/x"), { params: Promise.resolve({ lab, planId: plan.id }) })).json()) as { plan: Json };
+    const got = (await (await planOne.GET(req("/x"), routeCtx({ planId: plan.id }))).json()) as { plan: Json };
     expect(got.plan.contentHash).toBe(p.contentHash);
     expect(got.plan.runSheet).toEqual(p.runSheet);
     expect(got.plan.cautions).toEqual(p.cautions);
@@ -110,7 +99,7 @@ describe("POST /plans/preview", () => {
     expect((await preview.POST(req("/x", "POST", { document: example() }), ctx())).status).toBe(200);
     as(SEED.users.harrowChemist);
     expect((await preview.POST(req("/x", "POST", { document: example() }), ctx())).status).toBe(404);
-    who.user = null;
+    signInAs(null);
     expect((await preview.POST(req("/x", "POST", { document: example() }), ctx())).status).toBe(401);
   });
 });

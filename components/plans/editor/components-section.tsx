@@ -21,7 +21,7 @@ import { DISPENSE_MODES, ROLES, blankComponent, blankHazards, type ComponentValu
 import { idFromName, nextId, renameComponent } from "./ids";
 import { useHasErrorUnder } from "./issue-store";
 
-const ROLE_WORD: Record<string, string> = { reagent: "Reagent", catalyst: "Catalyst (metal source)", ligand: "Ligand", additive: "Additive" };
+const ROLE_WORD: Record<string, string> = { reagent: "Reagent", catalyst: "Catalyst", ligand: "Ligand", additive: "Additive" };
 const STATE_OPTIONS = [
   ["solid", "Solid"],
   ["liquid", "Neat liquid"],

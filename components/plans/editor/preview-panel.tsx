@@ -7,14 +7,19 @@
  * vial map and the values the plan is computed with. A failed or waiting preview keeps
  * showing the last answer, marked as not up to date; typed input is never touched.
  */
+import dynamic from "next/dynamic";
 import { useState } from "react";
 import type { PlanPreviewState } from "@/lib/hooks/use-plan-preview";
-import { CautionsList } from "../cautions-list";
-import { DesignTable, type DesignFactor } from "../design-table";
-import { RunSheetTable } from "../run-sheet-table";
-import { StocksTable } from "../stocks-table";
-import { ValuesUsed } from "../values-used";
-import { PlanVialMap } from "../plan-vial-map";
+import type { DesignFactor } from "../design-table";
+
+// The panes load when the first preview arrives, not with the page (the editor's first-load JavaScript stays small).
+const loading = () => <p className="text-sm text-ink-soft">Loading…</p>;
+const CautionsList = dynamic(() => import("../cautions-list").then((m) => m.CautionsList), { loading });
+const DesignTable = dynamic(() => import("../design-table").then((m) => m.DesignTable), { loading });
+const RunSheetTable = dynamic(() => import("../run-sheet-table").then((m) => m.RunSheetTable), { loading });
+const StocksTable = dynamic(() => import("../stocks-table").then((m) => m.StocksTable), { loading });
+const ValuesUsed = dynamic(() => import("../values-used").then((m) => m.ValuesUsed), { loading });
+const PlanVialMap = dynamic(() => import("../plan-vial-map").then((m) => m.PlanVialMap), { loading });
 
 const TABS = [
   ["cautions", "Cautions"],

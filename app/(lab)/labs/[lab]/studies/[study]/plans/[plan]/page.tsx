@@ -114,7 +114,7 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
         </Banner>
       )}
 
-      <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_16rem]">
+      <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="flex min-w-0 flex-col gap-8">
           <Section title="Cautions" id="cautions">
             <CautionsList report={plan} testId="plan-cautions-list" />
