@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import { DEMO, signIn } from "./support/auth";
 import { LAB, buildPlan, masses, newStudy, planCount, upToDate } from "./support/plan-editor";
 
