@@ -24,8 +24,22 @@ const isMissingChemical = (issue: FieldIssue) => issue.path.endsWith(".chemicalI
  * `document.recipe.….chemicalId`, and nothing is stored.
  */
 export async function evaluateStoredPlan(opts: { labId: string; document: PlanDocument; refuseUnknownChemicals?: boolean }, t?: Transaction): Promise<PlanEvaluation> {
+  const linked = await withInventoryFacts(opts, t);
+  return evaluatePlan(linked.document, linked.issues);
+}
+
+/**
+ * The stored document as the engines see it: with the hazard facts of its inventory-linked
+ * components and solvents taken from the lab's inventory (see `evaluateStoredPlan`), and
+ * the issues found on the way at `document.<path>`.
+ * @throws AppError invalid_input with `refuseUnknownChemicals`, as `evaluateStoredPlan`.
+ */
+export async function withInventoryFacts(
+  opts: { labId: string; document: PlanDocument; refuseUnknownChemicals?: boolean },
+  t?: Transaction,
+): Promise<{ document: PlanDocumentInput; issues: FieldIssue[] }> {
   const ids = linkedChemicalIds(opts.document);
-  if (ids.length === 0) return evaluatePlan(opts.document);
+  if (ids.length === 0) return { document: opts.document, issues: [] };
   // Only the lab's own chemicals are read; an id the lab does not have is reported by applyInventoryFacts.
   const known = (await Chemical.findAll({ where: { labId: opts.labId, id: { [Op.in]: ids } }, attributes: ["id"], transaction: t })).map((c) => c.id);
   const facts = await planHazardFacts({ labId: opts.labId, chemicalIds: known }, t);
@@ -34,5 +48,5 @@ export async function evaluateStoredPlan(opts: { labId: string; document: PlanDo
   if (opts.refuseUnknownChemicals && issues.some(isMissingChemical)) {
     throw new AppError("invalid_input", "The plan names chemicals this lab's inventory does not have.", issues.filter(isMissingChemical));
   }
-  return evaluatePlan(linked.document as PlanDocumentInput, issues);
+  return { document: linked.document as PlanDocumentInput, issues };
 }
