@@ -35,6 +35,7 @@ import { acceptInvitationSchema, changePasswordSchema, changeRoleSchema, inviteM
 import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
 import { settingsUpdateSchema } from "../../lib/lab-settings/schemas";
 import { planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
+import { safeDesignRequestSchema } from "../../lib/plans/safe-design";
 import { studyCreateSchema, studyUpdateSchema } from "../../lib/studies/schemas";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 
@@ -267,6 +268,7 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     { route: "labs/[lab]/plans/[planId]", method: "PUT", body: "json", schema: planUpdateSchema, example: () => ({ document: { name: "Fuzz plan" }, version: 1 }), params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/plans/[planId]", method: "DELETE", body: "none", params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/plans/[planId]/duplicate", method: "POST", body: "json", schema: planDuplicateSchema, example: () => ({ name: "Fuzz copy" }), params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/alternatives", method: "POST", body: "json", schema: safeDesignRequestSchema, example: () => ({ document: { name: "Fuzz plan" }, kinds: ["face-centered"] }), params: { lab: LAB } },
     { route: "labs/[lab]/settings/[section]", method: "PUT", body: "json", schema: settingsUpdateSchema("dispensing"), example: () => ({ version: 1, value: { minPipetteVolumeUl: 10, overagePercent: 10, deadVolumeUl: 50, minWeighMassMg: 82, maxStockVolumeMl: 25, stockFillFraction: 0.8 } }), params: { lab: LAB, section: "dispensing" } },
   ];
 
