@@ -13,6 +13,7 @@ import { readFileSync } from "node:fs";
 import seedrandom from "seedrandom";
 import { describe, expect, it } from "vitest";
 import { AppError } from "@/lib/errors/app-error";
+import type { PlanDocumentInput } from "@/lib/chemistry/plan-document";
 import { planReport } from "@/lib/chemistry/plan-report";
 import { pointSafety } from "@/lib/chemistry/point-safety";
 import { ALTERNATIVE_KINDS } from "@/lib/doe";
@@ -63,7 +64,7 @@ function thfPlan(): Doc {
   };
 }
 
-const report = (d: Doc, kinds?: (typeof ALTERNATIVE_KINDS)[number][]) => safeDesign({ sent: d, evaluated: d }, kinds ? { kinds } : {});
+const report = (d: Doc, kinds?: (typeof ALTERNATIVE_KINDS)[number][]) => safeDesign({ sent: d, evaluated: d as unknown as PlanDocumentInput }, kinds ? { kinds } : {});
 const byKind = (r: SafeDesignReport, kind: SafeDesignAlternative["kind"]) => {
   const a = r.alternatives.find((x) => x.kind === kind);
   if (!a) throw new Error(`${kind} missing`);
