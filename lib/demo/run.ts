@@ -4,6 +4,7 @@ import { fileURLToPath, pathToFileURL } from "node:url";
 import { db, transaction } from "@/lib/server/db";
 import { DemoStep as DemoStepRecord } from "@/lib/server/models";
 import { demoContext, findDemoLab } from "./context";
+import { installJobQueue } from "./job-queue";
 import { STEP_NAME, type DemoStep } from "./step";
 
 /**
@@ -62,6 +63,8 @@ export async function runDemo(options: { steps?: NamedStep[]; log?: (line: strin
   if (!base) return { applied: [], alreadyApplied: [], noDemoLab: true };
   const steps = options.steps ?? (await loadDemoSteps());
   const result: DemoRunResult = { applied: [], alreadyApplied: [], noDemoLab: false };
+  const recorded = new Set((await DemoStepRecord.findAll({ attributes: ["name"] })).map((r) => r.name));
+  if (steps.some((s) => s.step.jobQueue && !recorded.has(s.name))) await installJobQueue();
   for (const { name, step } of steps) {
     const done = await transaction(async (t) => {
       await db().query("SELECT pg_advisory_xact_lock(:key)", { replacements: { key: LOCK_KEY }, transaction: t });

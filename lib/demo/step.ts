@@ -14,11 +14,16 @@ import type { DemoContext } from "./context";
 export interface DemoStep {
   title: string;
   run: (ctx: DemoContext, t: Transaction) => Promise<void>;
+  /**
+   * The step adds jobs (a submit for review mails the safety officers): the runner installs
+   * the job queue first (lib/demo/job-queue.ts), since the worker starts after the demo.
+   */
+  jobQueue: boolean;
 }
 
 /** Defines a demo step (the default export of a step file). */
-export function demoStep(title: string, run: DemoStep["run"]): DemoStep {
-  return { title, run };
+export function demoStep(title: string, run: DemoStep["run"], options: { jobQueue?: boolean } = {}): DemoStep {
+  return { title, run, jobQueue: options.jobQueue ?? false };
 }
 
 /** A step file's name without `.ts`: two or more digits, a hyphen, lower-case words (`10-lab-equipment`). */

@@ -18,7 +18,8 @@ import { suggestSafeDesign } from "@/lib/plans/server/suggest-safe-design";
 import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";
 import { createStudy } from "@/lib/studies/server/create-study";
 import { AuditEntry, Chemical, DemoStep, Lab, Plan, Study } from "@/lib/server/models";
-import { SEED } from "../support/integration";
+import { QueryTypes } from "sequelize";
+import { db, SEED } from "../support/integration";
 
 const LAB = SEED.labs.kestrel.id;
 
@@ -70,6 +71,20 @@ describe("the demo's steps", () => {
     expect((await runDemo({ steps: [{ name, step }] })).applied).toEqual([]);
     expect(await Study.count({ where: { name: studyName } })).toBe(1);
     expect((await DemoStep.findByPk(name))?.records).toEqual({ [`test.${tag}`]: (await Study.findOne({ where: { name: studyName } }))!.id });
+  });
+
+  it("a step that adds jobs gets the job queue installed first (as the worker installs it)", async () => {
+    const name = `97-test-queue-${randomUUID().slice(0, 8)}`;
+    let queues: unknown[] = [];
+    const step = demoStep(
+      "a test step that adds jobs",
+      async (_ctx, t) => {
+        queues = await db().query("SELECT name FROM pgboss.queue WHERE name = 'mail'", { type: QueryTypes.SELECT, transaction: t });
+      },
+      { jobQueue: true },
+    );
+    expect((await runDemo({ steps: [{ name, step }] })).applied).toEqual([name]);
+    expect(queues).toEqual([{ name: "mail" }]);
   });
 });
 
