@@ -26,18 +26,9 @@ import { ALTERNATIVE_KINDS, safeDesignAlternatives, type AlternativeKind, type D
 import { formatNumber } from "../doe/format";
 import { parseOrThrow } from "../errors/app-error";
 import type { ModelSpec } from "../stats/model-terms";
+import { ALTERNATIVE_LABELS, unitLabel } from "./safe-design-labels";
 
-/** The alternatives in the order they are shown, with their names on screen. */
-export const ALTERNATIVE_LABELS: Record<AlternativeKind, string> = {
-  "face-centered": "Face-centred",
-  inscribed: "Inscribed",
-  "smaller-alpha": "Smaller α",
-  "narrower-range": "Narrower range",
-  "d-optimal": "D-optimal without the blocked points",
-};
-
-/** The quick alternatives (well under a second for six factors); "d-optimal" runs a search and is asked for on its own. */
-export const QUICK_ALTERNATIVES = ALTERNATIVE_KINDS.filter((k) => k !== "d-optimal");
+export { ALTERNATIVE_LABELS, QUICK_ALTERNATIVES, unitLabel } from "./safe-design-labels";
 
 const modelSchema = z.union([z.enum(["linear", "interaction", "quadratic"]), z.array(text(200).min(1)).min(1).max(40)]);
 
@@ -104,13 +95,6 @@ export interface SafeDesignReport {
 /** The findings at a point that make it blocked: every blocking caution and every limit left. */
 function findingsOf(r: PointSafetyResult): SafeDesignFinding[] {
   return [...r.blocking.map((f) => ({ ...f, severity: "blocking" as const })), ...r.limits.map((f) => ({ ...f, severity: "limit" as const }))];
-}
-
-const UNIT_LABELS: Record<string, string> = { degC: "°C", degF: "°F", "mol%": "mol %", "vol%": "vol %", fraction: "" };
-/** A factor's unit as it is written next to a number ("°C", "mol %"; nothing for a fraction). */
-export function unitLabel(unit: string | undefined): string {
-  if (!unit) return "";
-  return UNIT_LABELS[unit] ?? unit;
 }
 
 const DESIGN_LABELS: Record<string, string> = {

@@ -9,19 +9,10 @@
 import { readFileSync } from "node:fs";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { AuditEntry, Plan } from "@/lib/server/models";
+import { routeCtx, signInAs } from "../support/fake-session";
 import { SEED } from "../support/integration";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const alternatives = await import("@/app/api/labs/[lab]/plans/alternatives/route");
 
@@ -31,12 +22,8 @@ interface Report {
   alternatives: Array<{ kind: string; available: boolean; runCount: number | null; nothingBlocks: boolean | null; dEfficiency: number | null; changes: string[]; document: Json | null }>;
   notComputed: string[];
 }
-const as = (u: { id: string; email: string }) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
-const ctx = (lab: string = SEED.labs.kestrel.slug) => ({ params: Promise.resolve({ lab }) });
-const post = (body: unknown, lab?: string) =>
-  alternatives.POST(new Request("http://test.invalid/x", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), ctx(lab));
+const as = signInAs;
+const post = (body: unknown) => alternatives.POST(new Request("http://test.invalid/x", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), routeCtx({}));
 /** The seeded chemical n (seeders/20261201001000-demo-inventory.cjs). */
 const seeded = (n: number) => `c4e10000-0000-4000-8000-${String(n).padStart(12, "0")}`;
 
@@ -53,7 +40,7 @@ async function counts() {
 }
 
 beforeEach(() => {
-  who.user = null;
+  signInAs(null);
 });
 
 describe("POST /plans/alternatives", () => {
@@ -101,7 +88,7 @@ describe("POST /plans/alternatives", () => {
     expect(((await res2.json()) as { error: { issues: Array<{ path: string }> } }).error.issues.map((i) => i.path)).toEqual(["document.recipe.components.0.chemicalId"]);
     as(SEED.users.harrowChemist);
     expect((await post({ document: ccd() })).status).toBe(404);
-    who.user = null;
+    signInAs(null);
     expect((await post({ document: ccd() })).status).toBe(401);
     expect(await counts()).toEqual(before);
   });

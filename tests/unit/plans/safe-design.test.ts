@@ -17,7 +17,7 @@ import type { PlanDocumentInput } from "@/lib/chemistry/plan-document";
 import { planReport } from "@/lib/chemistry/plan-report";
 import { pointSafety } from "@/lib/chemistry/point-safety";
 import { ALTERNATIVE_KINDS } from "@/lib/doe";
-import { safeDesign, safeDesignRequestSchema, type SafeDesignAlternative, type SafeDesignReport } from "@/lib/plans/safe-design";
+import { QUICK_ALTERNATIVES, safeDesign, safeDesignRequestSchema, type SafeDesignAlternative, type SafeDesignReport } from "@/lib/plans/safe-design";
 
 type Doc = Record<string, unknown> & { recipe: Record<string, unknown> & { components: Array<Record<string, unknown>> }; factors: Array<Record<string, unknown>>; design: Record<string, unknown> };
 
@@ -159,6 +159,8 @@ describe("safe design of the Suzuki screen as a rotatable CCD, temperature 80–
   });
 
   it("computes only the alternatives asked for and says which it left out", () => {
+    // The panel's quick set is every kind but the D-optimal search (one list, checked here against the engine's).
+    expect(QUICK_ALTERNATIVES).toEqual(ALTERNATIVE_KINDS.filter((k) => k !== "d-optimal"));
     const quick = report(doc, ["face-centered", "smaller-alpha"]);
     expect(quick.alternatives.map((a) => a.kind)).toEqual(["face-centered", "smaller-alpha"]);
     expect(quick.notComputed).toEqual(["inscribed", "narrower-range", "d-optimal"]);
