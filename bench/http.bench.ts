@@ -90,8 +90,18 @@ async function signIn(base: string): Promise<string> {
   return cookie();
 }
 
+/** fetch, tried once more when a kept-alive connection was closed by the server meanwhile (after a load run). */
+async function fetchOnce(url: string, init?: RequestInit): Promise<Response> {
+  try {
+    return await fetch(url, init);
+  } catch (e) {
+    if (!(e instanceof TypeError)) throw e;
+    return fetch(url, init);
+  }
+}
+
 async function api<T>(base: string, cookie: string, path: string, method = "GET", body?: unknown): Promise<T> {
-  const res = await fetch(`${base}/api/labs/${LAB}${path}`, {
+  const res = await fetchOnce(`${base}/api/labs/${LAB}${path}`, {
     method,
     headers: { cookie, ...(body === undefined ? {} : { "content-type": "application/json" }) },
     body: body === undefined ? undefined : JSON.stringify(body),
@@ -199,7 +209,7 @@ export const asyncCases: AsyncBenchCase[] = [
         const url = `${target.base}/api/labs/${LAB}/plans/${planId}`;
         // One request first, alone: what a plan costs when nothing is cached (or was, by an earlier run).
         const t0 = performance.now();
-        const first = await fetch(url, { headers: { cookie } });
+        const first = await fetchOnce(url, { headers: { cookie } });
         const bytes = (await first.arrayBuffer()).byteLength;
         const firstMs = performance.now() - t0;
         const plan = load(wrk, url, cookie);

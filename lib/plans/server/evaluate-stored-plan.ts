@@ -1,7 +1,7 @@
 import "server-only";
 import { Op, type Transaction } from "sequelize";
 import { AppError, type FieldIssue } from "@/lib/errors/app-error";
-import { applyInventoryFacts, linkedChemicalIds } from "@/lib/chemistry/inventory-facts";
+import { applyInventoryFacts, linkedChemicalIds, type InventoryChemicalFacts } from "@/lib/chemistry/inventory-facts";
 import type { PlanDocument, PlanDocumentInput } from "@/lib/chemistry/plan-document";
 import { planHazardFacts } from "@/inventory/server/plan-hazard-facts";
 import { Chemical } from "@/lib/server/models";
@@ -41,8 +41,15 @@ export async function withInventoryFacts(
   const ids = linkedChemicalIds(opts.document);
   if (ids.length === 0) return { document: opts.document, issues: [] };
   // Only the lab's own chemicals are read; an id the lab does not have is reported by applyInventoryFacts.
-  const known = (await Chemical.findAll({ where: { labId: opts.labId, id: { [Op.in]: ids } }, attributes: ["id"], transaction: t })).map((c) => c.id);
-  const facts = await planHazardFacts({ labId: opts.labId, chemicalIds: known }, t);
+  let facts: Record<string, InventoryChemicalFacts>;
+  try {
+    facts = await planHazardFacts({ labId: opts.labId, chemicalIds: ids }, t);
+  } catch (e) {
+    // Some id is not the lab's (planHazardFacts names it): read the facts of those that are.
+    if (!(e instanceof AppError) || e.code !== "not_found") throw e;
+    const known = (await Chemical.findAll({ where: { labId: opts.labId, id: { [Op.in]: ids } }, attributes: ["id"], transaction: t })).map((c) => c.id);
+    facts = await planHazardFacts({ labId: opts.labId, chemicalIds: known }, t);
+  }
   const linked = applyInventoryFacts(opts.document, facts);
   const issues = linked.issues.map((i) => ({ ...i, path: `${DOCUMENT_PATH}.${i.path}` }));
   if (opts.refuseUnknownChemicals && issues.some(isMissingChemical)) {

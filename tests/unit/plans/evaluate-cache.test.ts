@@ -11,6 +11,7 @@ import { describe, expect, it } from "vitest";
 import type { PlanDocumentInput } from "@/lib/chemistry/plan-document";
 import { planReport } from "@/lib/chemistry/plan-report";
 import { evaluatePlan, splitReport } from "@/lib/plans/evaluate";
+import { planJsonBytes } from "@/lib/plans/plan-json";
 
 const example = (): PlanDocumentInput => JSON.parse(readFileSync(new URL("../../../examples/plan-suzuki.json", import.meta.url), "utf8")) as PlanDocumentInput;
 const plain = <T,>(v: T): T => JSON.parse(JSON.stringify(v)) as T;
@@ -53,5 +54,20 @@ describe("evaluatePlan's cache", () => {
     // The caller's document is not frozen with it.
     expect(Object.isFrozen(doc.recipe)).toBe(false);
     expect(Object.isFrozen(doc.vessel)).toBe(false);
+  });
+});
+
+describe("the plan's JSON body (lib/plans/plan-json.ts)", () => {
+  it("is byte for byte JSON.stringify({ plan }), with a cached run sheet, without one, and with any text in the document", () => {
+    const doc = example();
+    doc.name = 'Quotes " and \\ backslashes, ünïcode 🧪, and a look-alike of the placeholder: tareline-run-sheet-';
+    const ev = evaluatePlan(doc);
+    const plan = { id: "p1", name: doc.name, document: doc, ...ev, signature: null };
+    const want = new TextEncoder().encode(JSON.stringify({ plan }));
+    expect(Buffer.from(planJsonBytes(plan)).equals(Buffer.from(want))).toBe(true);
+    // Again (the run sheet's bytes now come from the per-object store), and for a plan without a run sheet.
+    expect(Buffer.from(planJsonBytes(plan)).equals(Buffer.from(want))).toBe(true);
+    const none = { ...plan, runSheet: null };
+    expect(new TextDecoder().decode(planJsonBytes(none))).toBe(JSON.stringify({ plan: none }));
   });
 });
