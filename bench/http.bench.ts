@@ -19,7 +19,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
-import type { AsyncBenchCase } from "./harness";
+import type { MeasuredBenchCase } from "./harness";
 
 const root = fileURLToPath(new URL("..", import.meta.url));
 const LAB = "kestrel-bay";
@@ -196,7 +196,7 @@ end
 
 const ms = (v: number) => `${v.toFixed(1)} ms`;
 
-export const asyncCases: AsyncBenchCase[] = [
+export const measuredCases: MeasuredBenchCase[] = [
   {
     name: `http: GET /plans/{id} (96-run plan), ${CONNECTIONS} concurrent users, p95 (wrk, vs GET /api/health in the same run)`,
     targetMs: 200,
