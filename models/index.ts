@@ -18,11 +18,13 @@ import { StockLedgerEntry } from "./stock-ledger-entry";
 import { ApiToken } from "./api-token";
 import { Study } from "./study";
 import { Plan } from "./plan";
+import { DemoStep } from "./demo-step";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 export { ApiToken };
 export { Study, Plan };
+export { DemoStep };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -40,6 +42,7 @@ export function initModels(sequelize: Sequelize): void {
   ApiToken.initModel(sequelize);
   Study.initModel(sequelize);
   Plan.initModel(sequelize);
+  DemoStep.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });

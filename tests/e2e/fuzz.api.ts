@@ -36,6 +36,7 @@ import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
 import { settingsUpdateSchema } from "../../lib/lab-settings/schemas";
 import { planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
 import { planPreviewSchema } from "../../lib/plans/preview";
+import { safeDesignRequestSchema } from "../../lib/plans/safe-design";
 import { studyCreateSchema, studyUpdateSchema } from "../../lib/studies/schemas";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 
@@ -270,6 +271,7 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     // The editor's live preview: writes nothing, so a malformed document is only ever refused.
     { route: "labs/[lab]/plans/preview", method: "POST", body: "json", schema: planPreviewSchema, example: () => ({ document: { name: "Fuzz preview" } }), params: { lab: LAB } },
     { route: "labs/[lab]/plans/[planId]/duplicate", method: "POST", body: "json", schema: planDuplicateSchema, example: () => ({ name: "Fuzz copy" }), params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/alternatives", method: "POST", body: "json", schema: safeDesignRequestSchema, example: () => ({ document: { name: "Fuzz plan" }, kinds: ["face-centered"] }), params: { lab: LAB } },
     { route: "labs/[lab]/settings/[section]", method: "PUT", body: "json", schema: settingsUpdateSchema("dispensing"), example: () => ({ version: 1, value: { minPipetteVolumeUl: 10, overagePercent: 10, deadVolumeUl: 50, minWeighMassMg: 82, maxStockVolumeMl: 25, stockFillFraction: 0.8 } }), params: { lab: LAB, section: "dispensing" } },
   ];
 
