@@ -18,11 +18,14 @@ import { StockLedgerEntry } from "./stock-ledger-entry";
 import { ApiToken } from "./api-token";
 import { Study } from "./study";
 import { Plan } from "./plan";
+import { PlanResult } from "./plan-result";
+import { AnalysisExclusion } from "./analysis-exclusion";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 export { ApiToken };
 export { Study, Plan };
+export { PlanResult, AnalysisExclusion };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -40,6 +43,8 @@ export function initModels(sequelize: Sequelize): void {
   ApiToken.initModel(sequelize);
   Study.initModel(sequelize);
   Plan.initModel(sequelize);
+  PlanResult.initModel(sequelize);
+  AnalysisExclusion.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -55,4 +60,6 @@ export function initModels(sequelize: Sequelize): void {
   Plan.belongsTo(User, { foreignKey: "authorId", as: "author" });
   Plan.belongsTo(Study, { foreignKey: "studyId", as: "study" });
   Study.hasMany(Plan, { foreignKey: "studyId", as: "plans" });
+  PlanResult.belongsTo(User, { foreignKey: "enteredBy", as: "enteredByUser" });
+  AnalysisExclusion.belongsTo(User, { foreignKey: "excludedBy", as: "excludedByUser" });
 }

@@ -24,15 +24,25 @@ const isMissingChemical = (issue: FieldIssue) => issue.path.endsWith(".chemicalI
  * `document.recipe.….chemicalId`, and nothing is stored.
  */
 export async function evaluateStoredPlan(opts: { labId: string; document: PlanDocument; refuseUnknownChemicals?: boolean }, t?: Transaction): Promise<PlanEvaluation> {
+  const linked = await inventoryLinkedDocument(opts, t);
+  if (opts.refuseUnknownChemicals && linked.issues.some(isMissingChemical)) {
+    throw new AppError("invalid_input", "The plan names chemicals this lab's inventory does not have.", linked.issues.filter(isMissingChemical));
+  }
+  return evaluatePlan(linked.document, linked.issues);
+}
+
+/**
+ * The stored document with the hazard facts of its inventory-linked components and
+ * solvents taken from the lab's inventory (as `evaluateStoredPlan` computes with), and
+ * where the document disagrees with the records (paths under `document.`). What the
+ * engines that judge a point of the plan's factor space (`pointSafety`) are given.
+ */
+export async function inventoryLinkedDocument(opts: { labId: string; document: PlanDocument }, t?: Transaction): Promise<{ document: PlanDocumentInput; issues: FieldIssue[] }> {
   const ids = linkedChemicalIds(opts.document);
-  if (ids.length === 0) return evaluatePlan(opts.document);
+  if (ids.length === 0) return { document: opts.document, issues: [] };
   // Only the lab's own chemicals are read; an id the lab does not have is reported by applyInventoryFacts.
   const known = (await Chemical.findAll({ where: { labId: opts.labId, id: { [Op.in]: ids } }, attributes: ["id"], transaction: t })).map((c) => c.id);
   const facts = await planHazardFacts({ labId: opts.labId, chemicalIds: known }, t);
   const linked = applyInventoryFacts(opts.document, facts);
-  const issues = linked.issues.map((i) => ({ ...i, path: `${DOCUMENT_PATH}.${i.path}` }));
-  if (opts.refuseUnknownChemicals && issues.some(isMissingChemical)) {
-    throw new AppError("invalid_input", "The plan names chemicals this lab's inventory does not have.", issues.filter(isMissingChemical));
-  }
-  return evaluatePlan(linked.document as PlanDocumentInput, issues);
+  return { document: linked.document as PlanDocumentInput, issues: linked.issues.map((i) => ({ ...i, path: `${DOCUMENT_PATH}.${i.path}` })) };
 }
