@@ -27,8 +27,8 @@ const MODELS = [
  * flagged runs, and leaving a run out with a reason (or bringing it back). Every number is
  * the analysis route's (the `fit` verb's own functions on the server).
  */
-export function AnalysisClient({ labSlug, source, responses, canExclude, factorUnits }: { labSlug: string; source: AnalysisSource; responses: StudyResponse[]; canExclude: boolean; factorUnits: Record<string, string> }) {
-  const [params, setParams] = useState<AnalysisParams>({ response: responses[0]?.name ?? "", model: "quadratic", alpha: null, hierarchy: true, transform: "none" });
+export function AnalysisClient({ labSlug, source, responses, canExclude, factorUnits, initialModel = "quadratic" }: { labSlug: string; source: AnalysisSource; responses: StudyResponse[]; canExclude: boolean; factorUnits: Record<string, string>; initialModel?: AnalysisParams["model"] }) {
+  const [params, setParams] = useState<AnalysisParams>({ response: responses[0]?.name ?? "", model: initialModel, alpha: null, hierarchy: true, transform: "none" });
   const [alphaText, setAlphaText] = useState("0.05");
   const { data, error, isLoading, isValidating, mutate } = useAnalysis(labSlug, source, params);
   const [selected, setSelected] = useState<number | null>(null);

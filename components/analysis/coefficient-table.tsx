@@ -21,7 +21,7 @@ export function CoefficientTable({ terms, stamp }: { terms: TermEstimate[]; stam
   }, [stamp]);
   const rows = terms.filter((t) => t.term !== "intercept");
   const span = Math.max(1e-12, ...rows.flatMap((t) => (t.ci95 ? [Math.abs(t.ci95[0]), Math.abs(t.ci95[1])] : [Math.abs(t.estimate)])));
-  const W = 220;
+  const W = 280;
   const x = (v: number) => W / 2 + (v / span) * (W / 2 - 6);
   return (
     <div className="overflow-x-auto rounded-lg border border-ink-line bg-paper-card" data-testid="coefficient-table" data-stamp={stamp}>
@@ -56,7 +56,7 @@ export function CoefficientTable({ terms, stamp }: { terms: TermEstimate[]; stam
                     <span className="flex items-center gap-2">
                       <svg width={W} height={14} role="img" aria-label={`interval ${sig(t.ci95[0], 3)} to ${sig(t.ci95[1], 3)}${crosses ? ", crosses zero" : ""}`}>
                         <line x1={W / 2} x2={W / 2} y1={0} y2={14} stroke="#8f8676" strokeWidth={1} />
-                        <rect x={Math.min(x(t.ci95[0]), x(t.ci95[1]))} y={4} width={Math.max(1.5, Math.abs(x(t.ci95[1]) - x(t.ci95[0])))} height={6} rx={2} fill={crosses ? "#f7e8c8" : "#dfe5ee"} stroke={crosses ? "#8a5607" : "#2f4a6d"} strokeWidth={1} />
+                        <rect x={Math.min(x(t.ci95[0]), x(t.ci95[1]))} y={3} width={Math.max(3, Math.abs(x(t.ci95[1]) - x(t.ci95[0])))} height={8} rx={2} fill={crosses ? "#f7e8c8" : "#dfe5ee"} stroke={crosses ? "#8a5607" : "#2f4a6d"} strokeWidth={1} />
                         <circle cx={x(t.estimate)} cy={7} r={2.5} fill={crosses ? "#8a5607" : "#2f4a6d"} />
                       </svg>
                       {crosses && <span className="whitespace-nowrap text-xs text-caution">crosses 0</span>}

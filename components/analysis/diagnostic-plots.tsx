@@ -75,7 +75,7 @@ export function DiagnosticPlots({ a, onSelect }: { a: AnalysisAnswer; onSelect: 
         id: "plot-cooks",
         label: "Cook's distance by run",
         data: [
-          { type: "bar", x: d.map((x) => x.run), y: cooks, customdata: custom, text, hovertemplate: "%{text}<br>D = %{y:.3g}<extra></extra>", marker: { color } } as Data,
+          { type: "bar", x: d.map((x) => x.run), y: cooks, customdata: custom, text, textposition: "none", hovertemplate: "%{text}<br>D = %{y:.3g}<extra></extra>", marker: { color } } as Data,
           line([Math.min(...d.map((x) => x.run)) - 0.5, Math.max(...d.map((x) => x.run)) + 0.5], [1, 1]),
         ],
         layout: baseLayout("Cook's distance (line at 1)", "run", "Cook's distance"),

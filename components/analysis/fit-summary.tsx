@@ -105,8 +105,11 @@ export function PruningSteps({ a }: { a: AnalysisAnswer }) {
                 </>
               ) : null}
               {s.reason}
-              {s.heldByHierarchy.length > 0 && (
-                <span className="text-ink-soft"> Held for hierarchy: {s.heldByHierarchy.map((h) => `${termLabel(h.term)} (p ${pValue(h.p)}, kept by ${h.heldBy.map(termLabel).join(", ")})`).join("; ")}.</span>
+              {s.removed !== null && s.heldByHierarchy.length > 0 && (
+                <span className="text-ink-soft" title={s.heldByHierarchy.map((h) => `${termLabel(h.term)} (p ${pValue(h.p)}) is kept by ${h.heldBy.map(termLabel).join(", ")}`).join("\n")}>
+                  {" "}
+                  Above α but kept for hierarchy: {s.heldByHierarchy.map((h) => termLabel(h.term)).join(", ")}.
+                </span>
               )}
               <span className="num text-ink-faint">
                 {" "}

@@ -1,11 +1,12 @@
 "use client";
 
 import { useState } from "react";
+import type { AnalysisParams } from "@/lib/hooks/use-analysis";
 import type { StudyResponse } from "@/lib/studies/schemas";
 import { AnalysisClient } from "./analysis-client";
 
 /** Several plans of one study analysed together: pick the plans (each a block), then the analysis. */
-export function StudyAnalysisClient({ labSlug, studyId, plans, initial, responses, canExclude, factorUnits }: { labSlug: string; studyId: string; plans: { id: string; name: string; state: string; runCount: number | null }[]; initial: string[]; responses: StudyResponse[]; canExclude: boolean; factorUnits: Record<string, string> }) {
+export function StudyAnalysisClient({ labSlug, studyId, plans, initial, responses, canExclude, factorUnits, initialModel }: { labSlug: string; studyId: string; plans: { id: string; name: string; state: string; runCount: number | null }[]; initial: string[]; responses: StudyResponse[]; canExclude: boolean; factorUnits: Record<string, string>; initialModel: AnalysisParams["model"] }) {
   const [chosen, setChosen] = useState<string[]>(initial.filter((id) => plans.some((p) => p.id === id)));
   return (
     <div className="flex flex-col gap-4">
@@ -23,7 +24,7 @@ export function StudyAnalysisClient({ labSlug, studyId, plans, initial, response
         {plans.length === 0 && <p className="text-ink-faint">No plan of this study has results yet.</p>}
       </fieldset>
       {chosen.length > 0 ? (
-        <AnalysisClient key={chosen.join(",")} labSlug={labSlug} source={{ kind: "study", studyId, plans: chosen }} responses={responses} canExclude={canExclude} factorUnits={factorUnits} />
+        <AnalysisClient key={chosen.join(",")} labSlug={labSlug} source={{ kind: "study", studyId, plans: chosen }} responses={responses} canExclude={canExclude} factorUnits={factorUnits} initialModel={initialModel} />
       ) : (
         <p className="text-sm text-ink-soft">Tick at least one plan.</p>
       )}

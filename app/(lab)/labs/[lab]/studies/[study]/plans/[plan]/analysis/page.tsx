@@ -5,6 +5,8 @@ import { pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { getPlan } from "@/lib/plans/server/get-plan";
 import { getResults } from "@/lib/results/server/get-results";
+import { resolveRuns } from "@/lib/chemistry/design-runs";
+import { defaultModel } from "@/lib/results/default-model";
 import { PlanStateBadge, SectionHeader } from "@/components/studies/bits";
 import { AnalysisClient } from "@/components/analysis/analysis-client";
 import { Banner } from "@/components/ui/banner";
@@ -23,6 +25,8 @@ export default async function PlanAnalysisPage({ params }: { params: Promise<{ l
   if (plan.studyId !== study) notFound();
   const base = `/labs/${access.lab.slug}/studies/${study}`;
   const entered = results.cells.filter((c) => !c.failed).length;
+  const names = plan.document.factors.map((f) => f.name);
+  const initialModel = defaultModel(resolveRuns(plan.document).map((r) => names.map((n) => r.coded[n] ?? 0)));
   const factorUnits = Object.fromEntries(plan.document.factors.map((f) => [f.name, f.unit ?? ""]));
   return (
     <div className="flex flex-col gap-5">
@@ -53,7 +57,7 @@ export default async function PlanAnalysisPage({ params }: { params: Promise<{ l
           No results yet. <Link href={`${base}/plans/${plan.id}/results`}>Enter them</Link> to analyse the plan.
         </Banner>
       ) : (
-        <AnalysisClient labSlug={access.lab.slug} source={{ kind: "plan", planId: plan.id }} responses={results.responses} canExclude={can(access.role, "plans.execute")} factorUnits={factorUnits} />
+        <AnalysisClient labSlug={access.lab.slug} source={{ kind: "plan", planId: plan.id }} responses={results.responses} canExclude={can(access.role, "plans.execute")} factorUnits={factorUnits} initialModel={initialModel} />
       )}
     </div>
   );
