@@ -6,12 +6,16 @@ import { Chemical, Container } from "@/lib/server/models";
 import { proposeContainers, type ChemicalFacts, type ContainerFacts } from "../availability";
 import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
 
-/** Loads what proposeContainers needs for some chemicals of one lab (tenant in every query). */
-export async function loadStockFacts(labId: string, chemicalIds: string[], t?: Transaction): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[] }> {
-  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: chemicalIds } }, transaction: t });
+/**
+ * Loads what proposeContainers needs for some chemicals of one lab (tenant in every
+ * query), plus the chemical records themselves for callers that need more of them.
+ */
+export async function loadStockFacts(labId: string, chemicalIds: readonly string[], t?: Transaction): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[]; records: Chemical[] }> {
+  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: [...chemicalIds] } }, transaction: t });
   const boxes = await Container.findAll({ where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } }, transaction: t });
   const held = await heldByContainer(boxes.map((b) => b.id), t);
   return {
+    records: chems,
     chemicals: chems.map((c) => ({
       id: c.id,
       name: c.name,
