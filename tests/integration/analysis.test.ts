@@ -21,19 +21,10 @@ import { pointSafety } from "@/lib/chemistry/point-safety";
 import { buildTerms, modelRow } from "@/lib/stats";
 import { findOptimum, fitResponseSurface } from "@/lib/surface";
 import { SEED } from "../support/integration";
+import { signInAs } from "../support/fake-session";
 import { ctxOf, forcePlanState, req, type Json } from "../support/plan-fixtures";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
@@ -46,9 +37,7 @@ const exclusions = await import("@/app/api/labs/[lab]/plans/[planId]/exclusions/
 const lab = SEED.labs.kestrel.slug;
 const ctx = ctxOf(lab);
 const tag = randomUUID().slice(0, 8);
-const chemist = () => {
-  who.user = { id: SEED.users.chemist.id, email: SEED.users.chemist.email, name: "chemist" };
-};
+const chemist = () => signInAs(SEED.users.chemist);
 const example = (): Json => JSON.parse(readFileSync(new URL("../../examples/plan-suzuki.json", import.meta.url), "utf8")) as Json;
 
 type Term = { term: string; estimate: number; stdError: number; t: number; p: number; ci95: [number, number] };
@@ -111,7 +100,7 @@ beforeAll(async () => {
   studyId = ((await res.json()) as { study: { id: string } }).study.id;
 });
 beforeEach(() => {
-  who.user = null;
+  signInAs(null);
 });
 
 describe("analysis of a plan", () => {

@@ -15,30 +15,21 @@ import { readFileSync } from "node:fs";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { AuditEntry, Plan, PlanResult, AnalysisExclusion } from "@/lib/server/models";
 import { SEED } from "../support/integration";
+import { signInAs } from "../support/fake-session";
 import { ctxOf, forcePlanState, req, type Json } from "../support/plan-fixtures";
+import { vialMap } from "@/lib/plans/vial-map";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
+const planOne = await import("@/app/api/labs/[lab]/plans/[planId]/route");
 const results = await import("@/app/api/labs/[lab]/plans/[planId]/results/route");
 const preview = await import("@/app/api/labs/[lab]/plans/[planId]/results/preview/route");
 const exclusions = await import("@/app/api/labs/[lab]/plans/[planId]/exclusions/route");
 const exclusionOne = await import("@/app/api/labs/[lab]/plans/[planId]/exclusions/[exclusionId]/route");
 
-const as = (u: { id: string; email: string }) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
+const as = (u: { id: string; email: string }) => signInAs(u);
 const lab = SEED.labs.kestrel.slug;
 const ctx = ctxOf(lab);
 const tag = randomUUID().slice(0, 8);
@@ -64,7 +55,7 @@ beforeAll(async () => {
   studyId = ((await res.json()) as { study: { id: string } }).study.id;
 });
 beforeEach(() => {
-  who.user = null;
+  signInAs(null);
 });
 
 describe("results entry", () => {
@@ -163,6 +154,26 @@ describe("results entry", () => {
     expect(body.warnings.map((w) => w.path)).toEqual(["rows.5.yield"]);
     expect(body.warnings[0]!.message).toContain("outside 0–100 %");
     expect(await PlanResult.count({ where: { planId } })).toBe(36);
+  });
+
+  it("a CSV mapped by vial position lands on the runs the vial map puts there; an unknown position is refused by row", async () => {
+    const planId = await newPlan();
+    await forcePlanState(planId, "running");
+    as(SEED.users.chemist);
+    const { plan } = (await (await planOne.GET(req("/x"), ctx({ planId }))).json()) as { plan: { document: { block: { positions: number } }; runSheet: { runs: Array<{ run: number; runOrder: number; temperatureC: number }> } } };
+    // The positions as the plan page, prep sheet and worklist show them (lib/plans/vial-map.ts).
+    const placements = vialMap(plan.runSheet.runs, { positions: plan.document.block.positions }).placements;
+    const csv = ["Vial,Yield", ...placements.map((p) => `${p.vial},${40 + p.run}`)].join("\n");
+    const pre = (await (await preview.POST(req("/x", "POST", { csv }), ctx({ planId }))).json()) as { preview: { mapBy: string; issues: unknown[]; runs: Array<{ run: number; responses: { yield: number } }> } };
+    expect(pre.preview.mapBy).toBe("vial");
+    expect(pre.preview.issues).toEqual([]);
+    expect(pre.preview.runs.map((r) => [r.run, r.responses.yield]).sort((a, b) => a[0]! - b[0]!)).toEqual(plan.runSheet.runs.map((r) => [r.run, 40 + r.run]).sort((a, b) => a[0]! - b[0]!));
+    const bad = await put(planId, { csv: `${csv}\nZ9,50` });
+    expect(bad.status).toBe(422);
+    expect(((await bad.json()) as ErrorJson).error.issues.map((i) => i.path)).toEqual([`rows.${placements.length + 1}.vial`]);
+    expect(await PlanResult.count({ where: { planId } })).toBe(0);
+    expect((await put(planId, { csv })).status).toBe(200);
+    expect((await PlanResult.findOne({ where: { planId, run: 5, response: "yield" } }))?.value).toBe(45);
   });
 
   it("a failed run (null) with its reason counts as entered; a correction of an entered plan is audited; removing a result of it is refused", async () => {
