@@ -13,7 +13,9 @@
 import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
-import { AuditEntry, Plan, PlanResult, AnalysisExclusion } from "@/lib/server/models";
+import { Op } from "sequelize";
+import { AuditEntry, Plan, PlanResult, AnalysisExclusion, Container, Reservation, StockLedgerEntry } from "@/lib/server/models";
+import { reserveStock } from "@/inventory/server/reserve-stock";
 import { SEED } from "../support/integration";
 import { signInAs } from "../support/fake-session";
 import { ctxOf, forcePlanState, req, type Json } from "../support/plan-fixtures";
@@ -211,6 +213,42 @@ describe("results entry", () => {
     expect((await put(planId, { runs: [{ run: 1, responses: { yield: 1 } }] }, )).status).toBe(404);
     expect((await results.PUT(req("/x", "PUT", { runs: [{ run: 1, responses: { yield: 1 } }] }), ctx({ planId }, SEED.labs.harrow.slug))).status).toBe(404);
     expect(await PlanResult.count({ where: { planId } })).toBe(0);
+  });
+});
+
+describe("stock follows results", () => {
+  it("the results that complete a plan consume its reservations with the amounts used (planned by default), release an unused one, and the ledger balances", async () => {
+    const planId = await newPlan();
+    await forcePlanState(planId, "running");
+    const boxes = await Container.findAll({ where: { labId: SEED.labs.kestrel.id, status: "available", dimension: "mass" }, order: [["id", "ASC"]], limit: 3 });
+    expect(boxes).toHaveLength(3);
+    const amountsBefore = boxes.map((b) => BigInt(b.amountBase));
+    // Reserved as release reserves them: held for the plan (inventory/server/reserve-stock.ts).
+    const held = await reserveStock({ labId: SEED.labs.kestrel.id, actorUserId: SEED.users.chemist.id, input: { planRef: planId, lines: boxes.map((b) => ({ containerId: b.id, amount: "10", unit: "mg" })) } });
+    as(SEED.users.chemist);
+    // Not complete yet: consumption is refused at its field, nothing is stored.
+    const early = await put(planId, { runs: [{ run: 1, responses: { yield: 50 } }], consumption: [{ reservationId: held[0]!.id, amount: "8", unit: "mg" }] });
+    expect(early.status).toBe(422);
+    expect(((await early.json()) as ErrorJson).error.issues.map((i) => i.path)).toEqual(["consumption"]);
+    const res = await put(planId, { runs: allRuns(), consumption: [{ reservationId: held[0]!.id, amount: "8.5", unit: "mg" }, { reservationId: held[2]!.id, amount: "0", unit: "mg" }] });
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as Answer & { changed: { consumed: number; released: number } };
+    expect(body.plan.state).toBe("results_entered");
+    expect(body.changed).toMatchObject({ consumed: 2, released: 1 });
+    const after = await Container.findAll({ where: { id: { [Op.in]: boxes.map((b) => b.id) } }, order: [["id", "ASC"]] });
+    // 8.5 mg used of the first (1 mg = 1000 µg), the planned 10 mg of the second, nothing of the third.
+    expect(after.map((b, i) => amountsBefore[i]! - BigInt(b.amountBase))).toEqual([8500n, 10000n, 0n]);
+    const rs = await Reservation.findAll({ where: { id: { [Op.in]: held.map((h) => h.id) } } });
+    expect(Object.fromEntries(rs.map((r) => [r.id, [r.status, r.consumedBase]]))).toEqual({ [held[0]!.id]: ["consumed", "8500"], [held[1]!.id]: ["consumed", "10000"], [held[2]!.id]: ["released", null] });
+    // The ledger balances: per container, the deltas of the plan's lines add up to the change of amount, and nothing is still held.
+    for (const [i, b] of boxes.entries()) {
+      const lines = await StockLedgerEntry.findAll({ where: { containerId: b.id, reservationId: held[i]!.id } });
+      expect(lines.reduce((s, l) => s + BigInt(l.deltaBase), 0n)).toBe(BigInt(after[i]!.amountBase) - amountsBefore[i]!);
+      expect(lines.reduce((s, l) => s + BigInt(l.heldDeltaBase), 0n)).toBe(0n);
+    }
+    // A second completion does not consume again (corrections leave the stock alone).
+    expect((await put(planId, { runs: [{ run: 3, responses: { yield: 60 } }] })).status).toBe(200);
+    expect((await Container.findByPk(boxes[1]!.id))!.amountBase).toBe(after[1]!.amountBase);
   });
 });
 
