@@ -5,17 +5,17 @@
  * from the click (performance mark `tareline:refit-start`, set in the checkbox's handler)
  * to the redrawn coefficient table (`tareline:refit-drawn`, set when the table of the new
  * fit is committed to the DOM) is read from the page's `tareline:refit` measure. The
- * re-fit goes through the analysis route (a request per tick). Needs the app
+ * re-fit goes through the analysis route (a request per tick); each tick unticks another
+ * term, so every model is new (none is answered from the page's cache). Needs the app
  * (TARELINE_BENCH_URL) and its database (DATABASE_URL); skipped with a note otherwise.
  */
 import { chromium, type Browser, type Page } from "@playwright/test";
 import type { AsyncBenchCase } from "./harness";
 import { response } from "./analysis.bench";
-import { sixFactorDocument } from "./analysis-route.bench";
+import { FACTORS, sixFactorDocument } from "./analysis-route.bench";
 import { BENCH_LAB, BENCH_URL, appUnavailable, planWithResults, signInCookie } from "./bench-app";
 import { seededRng } from "../lib/doe";
 
-const FACTORS = ["temperature", "timeH", "baseEquiv", "boronicEquiv", "pdLoading", "waterFraction"];
 const ARGS = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"];
 
 const st: { skip: string | null; browser: Browser | null; page: Page | null; ticks: number; samples: number[] } = { skip: null, browser: null, page: null, ticks: 0, samples: [] };
@@ -37,11 +37,18 @@ async function setup(): Promise<void> {
   await st.page.waitForFunction(() => document.querySelectorAll("[data-testid=coefficient-table] tbody tr").length === 28);
 }
 
-/** One tick of a term (timeH^2, alternately off and on) and the page's own measure of it. */
+/** The terms unticked one after another (squares, then interactions): every tick is a model not fitted before, so no answer comes from the page's cache. */
+const ORDER = (() => {
+  const squares = FACTORS.map((f) => `${f}^2`);
+  const pairs = FACTORS.flatMap((a, i) => FACTORS.slice(i + 1).map((b) => `${a}*${b}`));
+  return [...squares, ...pairs];
+})();
+
+/** One tick (the next term of ORDER off) and the page's own measure of it. */
 async function tick(): Promise<number> {
   const page = st.page!;
   const before = await page.evaluate(() => performance.getEntriesByName("tareline:refit", "measure").length);
-  await page.getByTestId("term-timeH^2").click();
+  await page.getByTestId(`term-${ORDER[st.ticks % ORDER.length]}`).click();
   await page.waitForFunction((n) => performance.getEntriesByName("tareline:refit", "measure").length > n, before);
   st.ticks++;
   return page.evaluate(() => {

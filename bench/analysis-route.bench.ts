@@ -18,8 +18,10 @@ import { PY_SCRIPT, response, statsmodelsReady } from "./analysis.bench";
 import { api, appUnavailable, planWithResults, signInCookie } from "./bench-app";
 import { seededRng } from "../lib/doe";
 import { buildTerms, modelRow } from "../lib/stats";
+import { fitResponseSurface } from "../lib/surface";
 
-const FACTORS = ["temperature", "timeH", "baseEquiv", "boronicEquiv", "pdLoading", "waterFraction"];
+/** In the document's order (the Suzuki factors, then time), so the terms come in the route's order. */
+export const FACTORS = ["temperature", "baseEquiv", "boronicEquiv", "pdLoading", "waterFraction", "timeH"];
 
 /** The demo's Suzuki–Miyaura recipe with six factors and a replicated face-centred CCD of `replicates` × 96 runs. */
 export function sixFactorDocument(name: string, replicates: number): Record<string, unknown> {
@@ -40,9 +42,10 @@ interface RouteState {
   y: number[];
   names: string[];
   exponents: number[][];
+  coded: Record<string, number>[];
   last: { terms: Array<{ term: string; estimate: number }>; stats: { n: number } } | null;
 }
-const st: RouteState = { skip: null, cookie: "", planId: "", X: [], y: [], names: [], exponents: [], last: null };
+const st: RouteState = { skip: null, cookie: "", planId: "", X: [], y: [], names: [], exponents: [], coded: [], last: null };
 const QUERY = "response=yield&model=quadratic&alpha=0.05&hierarchy=true";
 
 async function setup(): Promise<void> {
@@ -57,6 +60,19 @@ async function setup(): Promise<void> {
   st.exponents = terms.map((t) => t.exponents);
   st.X = made.runs.map((r) => [...modelRow(terms, FACTORS.map((f) => r.coded[f]!))]);
   st.y = made.yields;
+  st.coded = made.runs.map((r) => r.coded);
+}
+
+/** The engine alone on the same data (what `fit` does in-process), median of 15 after 3 warm-ups. */
+function engineMs(): number {
+  const input = { factors: FACTORS.map((name) => ({ name, low: -1, high: 1 })), runs: st.coded.map((c, i) => ({ coded: c, response: st.y[i]! })), model: "quadratic", prune: { alpha: 0.05, hierarchy: true } };
+  const times: number[] = [];
+  for (let i = 0; i < 18; i++) {
+    const t0 = performance.now();
+    fitResponseSurface(input);
+    if (i >= 3) times.push(performance.now() - t0);
+  }
+  return times.sort((a, b) => a - b)[Math.floor(times.length / 2)]!;
 }
 
 export const cases: AsyncBenchCase[] = [
@@ -86,9 +102,11 @@ export const cases: AsyncBenchCase[] = [
         const pyKept = py.kept.map((j) => st.names[j]!);
         const same = JSON.stringify(pyKept) === JSON.stringify(ours.terms.map((t) => t.term));
         const diff = same ? Math.max(...ours.terms.map((t, j) => Math.abs(t.estimate - py.coefficients[j]!))) : NaN;
+        const engine = engineMs();
         return [
           `the route answered for n = ${ours.stats.n} runs; statsmodels (same data and elimination rules, one BLAS thread, timed inside Python, no database, no HTTP): median ${py.medianMs.toFixed(2)} ms (min ${py.minMs.toFixed(2)})`,
           `agreement: ${same ? `the same ${pyKept.length} kept terms` : `DIFFERENT kept terms (statsmodels: ${pyKept.join(", ")})`}; largest coefficient difference ${diff.toExponential(2)}`,
+          `the engine alone in-process on the same data (fit, pruning, ANOVA, diagnostics, canonical analysis): median ${engine.toFixed(2)} ms, ratio engine / statsmodels ${(engine / py.medianMs).toFixed(2)}`,
           `time ratio route / statsmodels: median ${(r.medianMs / py.medianMs).toFixed(2)}, min ${(r.minMs / py.minMs).toFixed(2)} (the route's figure is the whole request: session, database, fit, pruning, diagnostics, optimum with safety checks, JSON)`,
         ];
       } finally {

@@ -66,15 +66,21 @@ export function analysisFactors(plan: Plan): AnalysisFactor[] {
   return plan.document.factors.map((f) => ({ name: f.name, low: f.low, high: f.high, unit: f.unit, ...(f.scale ? { scale: f.scale } : {}) }));
 }
 
+/** The plan's result cells alone (no people), as plain rows: what an analysis reads. */
+async function resultCells(opts: { labId: string; planId: string }, t?: Transaction): Promise<Map<string, ResultCell>> {
+  const rows = (await PlanResult.findAll({ where: { labId: opts.labId, planId: opts.planId }, attributes: ["run", "response", "value", "failed", "failureReason"], raw: true, transaction: t })) as unknown as Pick<PlanResult, "run" | "response" | "value" | "failed" | "failureReason">[];
+  return new Map(rows.map((r) => [cellKey(r.run, r.response), { run: r.run, response: r.response, value: r.value, failed: r.failed, reason: r.failureReason }]));
+}
+
 /** A plan as an analysis reads it: factors, runs, results and active exclusions. */
 export async function analysisSource(p: PlanForResults, labId: string, t?: Transaction): Promise<AnalysisPlanSource> {
-  const [rows, exclusions] = await Promise.all([resultRows({ labId, planId: p.plan.id }, t), activeExclusions({ labId, planId: p.plan.id }, t)]);
+  const [results, exclusions] = await Promise.all([resultCells({ labId, planId: p.plan.id }, t), activeExclusions({ labId, planId: p.plan.id }, t)]);
   return {
     id: p.plan.id,
     name: p.plan.name,
     factors: analysisFactors(p.plan),
     runs: p.runs.map((r) => ({ run: r.standardOrder, runOrder: r.runOrder, natural: r.natural })),
-    results: cellMap(rows),
+    results,
     exclusions: exclusions.map((e) => ({ id: e.id, run: e.run, response: e.response, reason: e.reason })),
   };
 }
