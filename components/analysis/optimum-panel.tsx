@@ -2,6 +2,7 @@
 
 import type { AnalysisAnswer } from "@/lib/results/analysis";
 import { Banner } from "@/components/ui/banner";
+import { SAFETY_NOTICE } from "@/components/shell/safety-notice";
 import { sig, withUnit } from "./format";
 
 /**
@@ -44,6 +45,7 @@ export function OptimumPanel({ a, factorUnits }: { a: AnalysisAnswer; factorUnit
                 : "Not checked against a safe envelope."}
             </p>
             {a.analysis.optimumNote && <p className="text-caution">{a.analysis.optimumNote}</p>}
+            {o.safety.checked && <p className="text-xs text-ink-faint">{SAFETY_NOTICE}</p>}
             {o.warnings.length > 0 && (
               <ul className="list-disc pl-4 text-caution" data-testid="optimum-warnings">
                 {o.warnings.map((w) => (

@@ -26,6 +26,8 @@ export interface GridRun {
 type Pending = { runs: ResultRunInput[] } | { csv: string; mapping?: unknown };
 
 const fmt = (v: number) => Number(v.toPrecision(6)).toString();
+/** Who entered a saved cell and when (UTC), for its tooltip. */
+const enteredText = (c: ResultsView["cells"][number] | undefined) => (c ? `entered by ${c.enteredBy.name || "a member"} on ${c.enteredAt.slice(0, 16).replace("T", " ")} UTC` : undefined);
 const storageKey = (planId: string) => `tareline:results-draft:${planId}`;
 
 /**
@@ -339,7 +341,7 @@ export function ResultsGrid({
                           inputMode="decimal"
                           aria-label={`${resp.name} of run ${r.run}`}
                           aria-invalid={bad}
-                          title={reading.kind === "error" ? reading.message : (warn ?? undefined)}
+                          title={reading.kind === "error" ? reading.message : (warn ?? enteredText(saved.get(k)))}
                           data-testid={`cell-${r.run}-${resp.name}`}
                           data-row={ri}
                           data-col={ci}
