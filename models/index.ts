@@ -19,12 +19,15 @@ import { ApiToken } from "./api-token";
 import { Study } from "./study";
 import { Plan } from "./plan";
 import { DemoStep } from "./demo-step";
+import { PlanResult } from "./plan-result";
+import { AnalysisExclusion } from "./analysis-exclusion";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 export { ApiToken };
 export { Study, Plan };
 export { DemoStep };
+export { PlanResult, AnalysisExclusion };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -43,6 +46,8 @@ export function initModels(sequelize: Sequelize): void {
   Study.initModel(sequelize);
   Plan.initModel(sequelize);
   DemoStep.initModel(sequelize);
+  PlanResult.initModel(sequelize);
+  AnalysisExclusion.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -58,4 +63,6 @@ export function initModels(sequelize: Sequelize): void {
   Plan.belongsTo(User, { foreignKey: "authorId", as: "author" });
   Plan.belongsTo(Study, { foreignKey: "studyId", as: "study" });
   Study.hasMany(Plan, { foreignKey: "studyId", as: "plans" });
+  PlanResult.belongsTo(User, { foreignKey: "enteredBy", as: "enteredByUser" });
+  AnalysisExclusion.belongsTo(User, { foreignKey: "excludedBy", as: "excludedByUser" });
 }
