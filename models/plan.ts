@@ -22,6 +22,8 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare authorId: string;
   declare derivedFromPlanId: string | null;
   declare derivation: PlanDerivation | null;
+  /** What a derived plan was derived with (a confirmation's analysis and point, an augmentation's α); null otherwise. */
+  declare derivationDetails: CreationOptional<Record<string, unknown> | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare author?: NonAttribute<User>;
@@ -42,6 +44,7 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
         authorId: { type: DataTypes.UUID, allowNull: false },
         derivedFromPlanId: { type: DataTypes.UUID, allowNull: true },
         derivation: { type: DataTypes.STRING(20), allowNull: true },
+        derivationDetails: { type: DataTypes.JSONB, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

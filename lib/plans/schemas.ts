@@ -32,6 +32,8 @@ export const planSchema = z.object({
   authorId: z.uuid(),
   derivedFromPlanId: z.uuid().nullable(),
   derivation: z.enum(PLAN_DERIVATIONS).nullable(),
+  /** What a derived plan was derived with (lib/results/confirmation-plan.ts, lib/plans/augmentation.ts), null otherwise. */
+  derivationDetails: z.record(z.string(), z.unknown()).nullable(),
   createdAt: z.iso.datetime(),
   updatedAt: z.iso.datetime(),
 });
@@ -49,6 +51,25 @@ export type PlanUpdateInput = z.input<typeof planUpdateSchema>;
 
 /** `POST /plans/{plan}/duplicate`: optionally a name for the copy (default "Copy of …"). */
 export const planDuplicateSchema = z.object({ name: text(300).min(1, "name the copy").optional() }).prefault({});
+
+/**
+ * `POST /plans/{plan}/augment`: the next design after a two-level factorial — α of the axial
+ * runs (rotatable F^¼, the α that blocks orthogonally, face-centred, or a number ≥ 1; cut
+ * to the factor limits and the safe envelope), the centre runs of the new block (default: as
+ * many as the factorial has, at least 2) and a name for the new plan.
+ */
+export const planAugmentSchema = z
+  .object({
+    alpha: z
+      .union([z.enum(["rotatable", "orthogonal", "face-centered"]), z.number().finite().min(1, "α is at least 1 (face-centred)").max(10, "α is at most 10")], {
+        message: "α is rotatable, orthogonal, face-centered or a number",
+      })
+      .default("rotatable"),
+    centerPoints: z.number({ message: "a whole number of centre runs" }).int("a whole number of centre runs").min(0).max(20, "at most 20 centre runs").optional(),
+    name: text(300).min(1, "name the plan").optional(),
+  })
+  .prefault({});
+export type PlanAugmentInput = z.input<typeof planAugmentSchema>;
 
 /** `DELETE /plans/{plan}?version=`: the version is optional; when given it must be current. */
 export const planDeleteSchema = z.object({ version: z.coerce.number().int().min(1).optional() });

@@ -9,11 +9,13 @@
  */
 import { AppError } from "../errors/app-error";
 import { pointSafety } from "../chemistry/point-safety";
+import type { FittedModel } from "../stats/fitted-model";
 import { buildTerms, type ModelSpec } from "../stats/model-terms";
 import { fitResponseSurface, type SurfaceFitOutput } from "../surface/response-surface";
 import { findOptimum, type OptimizeOutput, type OptimumTarget } from "../surface/optimize";
 import type { StudyResponse } from "../studies/schemas";
 import { analysisIssues, fitInputOf, type AnalysisPlanSource, type AnalysisRunInfo } from "./analysis-input";
+import type { NextDesign } from "./next-design";
 import type { AnalysisQuery } from "./schemas";
 
 export interface AnalysisMeta {
@@ -34,8 +36,12 @@ export interface AnalysisMeta {
   optimumNote: string | null;
 }
 
-/** `GET …/analysis`: the `fit` verb's output, the optimum, and what the analysis used. */
-export type AnalysisAnswer = SurfaceFitOutput & { optimum: OptimizeOutput | null; analysis: AnalysisMeta };
+/**
+ * `GET …/analysis`: the `fit` verb's output, the optimum, and what the analysis used; the
+ * plan and study routes add `nextDesign` (confirmations, steepest ascent, augmentation:
+ * lib/results/next-design.ts).
+ */
+export type AnalysisAnswer = SurfaceFitOutput & { optimum: OptimizeOutput | null; analysis: AnalysisMeta; nextDesign?: NextDesign };
 
 /**
  * Analyses `response` over the plans. `envelope` is the plan document (with the
@@ -50,6 +56,19 @@ export function analyzeSources(
   query: AnalysisQuery,
   envelope: { plan: { id: string; name: string }; document: unknown } | null,
 ): AnalysisAnswer {
+  return analyzeSourcesWithModel(sources, responses, query, envelope).answer;
+}
+
+/**
+ * `analyzeSources`, with the fitted model itself (what the confirmation runs and the path of
+ * steepest ascent are computed from: lib/results/next-steps.ts).
+ */
+export function analyzeSourcesWithModel(
+  sources: readonly AnalysisPlanSource[],
+  responses: readonly StudyResponse[],
+  query: AnalysisQuery,
+  envelope: { plan: { id: string; name: string }; document: unknown } | null,
+): { answer: AnalysisAnswer; model: FittedModel } {
   if (responses.length === 0) throw AppError.field("response", "the study names no response to analyse");
   const response = query.response === undefined ? responses[0]! : responses.find((r) => r.name === query.response);
   if (!response) throw AppError.field("response", `is not a response of the study (${responses.map((r) => r.name).join(", ")})`);
@@ -89,7 +108,7 @@ export function analyzeSources(
   }
   const names = model.factors.map((f) => f.name);
   const planCounts = sources.map((s) => ({ id: s.id, name: s.name, runs: runs.filter((r) => r.planId === s.id).length, used: runs.filter((r) => r.planId === s.id && r.status === "used").length }));
-  return {
+  const answer: AnalysisAnswer = {
     ...output,
     optimum,
     analysis: {
@@ -105,6 +124,7 @@ export function analyzeSources(
       optimumNote,
     },
   };
+  return { answer, model };
 }
 
 /** What to optimise for a study response: its goal, or a reason there is none. */

@@ -125,3 +125,39 @@ export const studyAnalysisQuerySchema = analysisQuerySchema.extend({
     .pipe(z.array(uuid("must be a plan id")).min(1, "name at least one plan").max(20, "at most 20 plans")),
 });
 export type StudyAnalysisQuery = z.output<typeof studyAnalysisQuerySchema>;
+
+/** The analysis a JSON body refers to (the analysis query's parameters; `model` a name, terms comma-separated, or a list of terms). */
+const analysisBodyShape = {
+  response: responseKey.optional(),
+  model: z
+    .union([z.string().max(4000), z.array(text(200).min(1, "name the term")).min(1, "name at least one term").max(60, "at most 60 terms")], { message: "a model name or a list of terms" })
+    .optional()
+    .transform((v) => (Array.isArray(v) ? v : modelParam.parse(v))),
+  alpha: z.number({ message: "alpha is a number (or null: nothing pruned)" }).gt(0, "alpha is above 0").lt(1, "alpha is below 1").nullable().optional(),
+  hierarchy: z.boolean({ message: "hierarchy is true or false" }).default(true),
+  transform: z.enum(["none", "ln"], { message: "transform is none or ln" }).default("none"),
+};
+
+/** The analysis query of a JSON body of `analysisBodyShape`. */
+export function analysisQueryOfBody(v: { response?: string; model: AnalysisQuery["model"]; alpha?: number | null; hierarchy: boolean; transform: "none" | "ln" }): AnalysisQuery {
+  return { ...(v.response !== undefined ? { response: v.response } : {}), model: v.model, ...(typeof v.alpha === "number" ? { alpha: v.alpha } : {}), hierarchy: v.hierarchy, transform: v.transform };
+}
+
+/** The most replicate runs a confirmation plan takes. */
+export const MAX_CONFIRMATION_REPLICATES = 24;
+
+/**
+ * `POST /plans/{plan}/confirmation` (CONTRACT.md): `{ response, replicates: 3 }` — the
+ * analysis whose optimum is confirmed (the analysis query's parameters; default as the
+ * analysis route), the replicate runs, settable steps per factor name in natural units
+ * (overriding the defaults by unit; 0 = not rounded), and a name for the new plan.
+ */
+export const confirmationRequestSchema = z.object({
+  ...analysisBodyShape,
+  replicates: z.number({ message: "replicates is a whole number" }).int("replicates is a whole number").min(1, "at least 1 replicate").max(MAX_CONFIRMATION_REPLICATES, `at most ${MAX_CONFIRMATION_REPLICATES} replicates`).default(3),
+  steps: z
+    .record(text(100).min(1), z.number({ message: "a step is a number" }).finite("a step is a finite number").min(0, "a step is zero (not rounded) or positive"), { message: "give the steps as { factor: step }" })
+    .optional(),
+  name: text(300).min(1, "name the plan").optional(),
+});
+export type ConfirmationRequest = z.input<typeof confirmationRequestSchema>;

@@ -34,11 +34,11 @@ import {
 import { acceptInvitationSchema, changePasswordSchema, changeRoleSchema, inviteMemberSchema } from "../../lib/members/schemas";
 import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
 import { settingsUpdateSchema } from "../../lib/lab-settings/schemas";
-import { planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
+import { planAugmentSchema, planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
 import { planPreviewSchema } from "../../lib/plans/preview";
 import { safeDesignRequestSchema } from "../../lib/plans/safe-design";
 import { studyCreateSchema, studyUpdateSchema } from "../../lib/studies/schemas";
-import { exclusionCreateSchema, RESULTS_BODY_LIMIT, resultsCsvSchema, resultsPutSchema } from "../../lib/results/schemas";
+import { confirmationRequestSchema, exclusionCreateSchema, RESULTS_BODY_LIMIT, resultsCsvSchema, resultsPutSchema } from "../../lib/results/schemas";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 
 const LAB = "kestrel-bay";
@@ -278,6 +278,9 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     { route: "labs/[lab]/plans/[planId]/results/preview", method: "POST", body: "json", schema: resultsCsvSchema, example: () => ({ csv: "Run,Yield\n1,72.1\n", mapping: { run: "Run", responses: { yield: "Yield" } } }), params: { lab: LAB, planId: randomId }, maxBytes: RESULTS_BODY_LIMIT },
     { route: "labs/[lab]/plans/[planId]/exclusions", method: "POST", body: "json", schema: exclusionCreateSchema, example: () => ({ run: 3, response: "yield", reason: "septum pierced twice" }), params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/plans/[planId]/exclusions/[exclusionId]", method: "DELETE", body: "none", params: { lab: LAB, planId: randomId, exclusionId: randomId } },
+    // The next design (issue 13): a plan id that matches no record, so only refusals are exercised.
+    { route: "labs/[lab]/plans/[planId]/confirmation", method: "POST", body: "json", schema: confirmationRequestSchema, example: () => ({ response: "yield", replicates: 3, model: "quadratic", alpha: 0.1, hierarchy: true, transform: "none", steps: { temperature: 1, baseEquiv: 0.05 }, name: "Fuzz confirmation" }), params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/[planId]/augment", method: "POST", body: "json", schema: planAugmentSchema, example: () => ({ alpha: "rotatable", centerPoints: 3, name: "Fuzz augmentation" }), params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/settings/[section]", method: "PUT", body: "json", schema: settingsUpdateSchema("dispensing"), example: () => ({ version: 1, value: { minPipetteVolumeUl: 10, overagePercent: 10, deadVolumeUl: 50, minWeighMassMg: 82, maxStockVolumeMl: 25, stockFillFraction: 0.8 } }), params: { lab: LAB, section: "dispensing" } },
   ];
 

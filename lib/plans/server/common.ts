@@ -30,6 +30,7 @@ export function planSummary(p: Plan): PlanSummary {
     authorName: p.author?.name ?? "",
     derivedFromPlanId: p.derivedFromPlanId,
     derivation: p.derivation,
+    derivationDetails: p.derivationDetails ?? null,
     createdAt: p.createdAt.toISOString(),
     updatedAt: p.updatedAt.toISOString(),
   };
@@ -63,6 +64,7 @@ export function planAudit(p: Plan, withDocument = true): Record<string, unknown>
     contentHash: p.contentHash,
     derivedFromPlanId: p.derivedFromPlanId,
     derivation: p.derivation,
+    ...(p.derivationDetails ? { derivationDetails: p.derivationDetails } : {}),
     ...(withDocument ? { document: p.document } : {}),
   };
 }

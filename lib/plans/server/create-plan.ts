@@ -16,12 +16,12 @@ import { findPlan, planAudit, planSummary, randomSeed, refuseInvalid, runCountOf
  * Creates a draft plan in a study (CONTRACT.md `POST /studies/{study}/plans`): the
  * document gets the lab's defaults where it gives none, is validated with the engine's
  * schema and stored in that form with its content hash; the run sheet and cautions are
- * computed at once. `derivedFrom` records where a copy came from. Audited.
+ * computed at once. `derivedFrom` records where a copy came from (and, for a confirmation or an augmentation, what it was derived with). Audited.
  * @throws AppError invalid_input with paths under `document.` (nothing stored),
  *   not_found (study), conflict (archived study).
  */
 export async function createPlan(
-  opts: { labId: string; actorUserId: string; studyId: string; input: unknown; derivedFrom?: { planId: string; derivation: PlanDerivation } },
+  opts: { labId: string; actorUserId: string; studyId: string; input: unknown; derivedFrom?: { planId: string; derivation: PlanDerivation; details?: Record<string, unknown> } },
   t?: Transaction,
 ): Promise<PlanView> {
   const body = parseOrThrow(planCreateSchema, opts.input, "The plan is not valid.");
@@ -44,6 +44,7 @@ export async function createPlan(
         authorId: opts.actorUserId,
         derivedFromPlanId: opts.derivedFrom?.planId ?? null,
         derivation: opts.derivedFrom?.derivation ?? null,
+        derivationDetails: opts.derivedFrom?.details ?? null,
       },
       { transaction: tx },
     );

@@ -4,7 +4,9 @@ import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { withInventoryFacts } from "@/lib/plans/server/evaluate-stored-plan";
 import { Plan } from "@/lib/server/models";
 import { findStudy } from "@/lib/studies/server/common";
-import { analyzeSources, type AnalysisAnswer } from "../analysis";
+import { runEnvelope } from "@/lib/plans/run-envelope";
+import { analyzeSourcesWithModel, type AnalysisAnswer } from "../analysis";
+import { nextDesignOf } from "../next-design";
 import { studyAnalysisQuerySchema } from "../schemas";
 import { analysisSource, loadPlanForResults } from "./common";
 
@@ -12,7 +14,8 @@ import { analysisSource, loadPlanForResults } from "./common";
  * Several plans of one study analysed together with a block term (CONTRACT.md
  * `GET /studies/{study}/analysis?plans=a,b&…`): each plan is a block (sum-to-zero coding;
  * lib/stats blocks), coded with the first plan's factors; the safe envelope of the
- * optimum is the first plan's. The answer says which plans and runs were used.
+ * optimum is the first plan's. The answer says which plans and runs were used; `nextDesign`
+ * holds the path of steepest ascent of a first-order model.
  * @throws AppError invalid_input (`plans`: not of this study, or factors that differ;
  *   the other query parameters), not_found (the study).
  */
@@ -28,5 +31,6 @@ export async function analyzeStudy(opts: { labId: string; studyId: string; query
   for (const p of loaded) sources.push(await analysisSource(p, opts.labId, t));
   const first = loaded[0]!;
   const linked = await withInventoryFacts({ labId: opts.labId, document: first.plan.document }, t);
-  return analyzeSources(sources, study.responses, query, { plan: { id: first.plan.id, name: first.plan.name }, document: linked.document });
+  const { answer, model } = analyzeSourcesWithModel(sources, study.responses, query, { plan: { id: first.plan.id, name: first.plan.name }, document: linked.document });
+  return { ...answer, nextDesign: nextDesignOf({ model, response: answer.analysis.response, query, safety: () => runEnvelope(linked.document), plan: null }) };
 }

@@ -67,7 +67,7 @@ export function analysisFactors(plan: Plan): AnalysisFactor[] {
 }
 
 /** The plan's result cells alone (no people), as plain rows: what an analysis reads. */
-async function resultCells(opts: { labId: string; planId: string }, t?: Transaction): Promise<Map<string, ResultCell>> {
+export async function resultCells(opts: { labId: string; planId: string }, t?: Transaction): Promise<Map<string, ResultCell>> {
   const rows = (await PlanResult.findAll({ where: { labId: opts.labId, planId: opts.planId }, attributes: ["run", "response", "value", "failed", "failureReason"], raw: true, transaction: t })) as unknown as Pick<PlanResult, "run" | "response" | "value" | "failed" | "failureReason">[];
   return new Map(rows.map((r) => [cellKey(r.run, r.response), { run: r.run, response: r.response, value: r.value, failed: r.failed, reason: r.failureReason }]));
 }
