@@ -13,6 +13,8 @@ import { DiagnosticPlots } from "./diagnostic-plots";
 import { AnovaTable, CurvatureCheck, FitStats, PruningSteps } from "./fit-summary";
 import { sig, termLabel, withUnit } from "./format";
 import { OptimumPanel } from "./optimum-panel";
+import { ConfirmationPanel } from "./confirmation-panel";
+import { NextDesignPanel } from "./next-design-panel";
 
 const MODELS = [
   ["linear", "Linear"],
@@ -27,7 +29,7 @@ const MODELS = [
  * flagged runs, and leaving a run out with a reason (or bringing it back). Every number is
  * the analysis route's (the `fit` verb's own functions on the server).
  */
-export function AnalysisClient({ labSlug, source, responses, canExclude, factorUnits, initialModel = "quadratic" }: { labSlug: string; source: AnalysisSource; responses: StudyResponse[]; canExclude: boolean; factorUnits: Record<string, string>; initialModel?: AnalysisParams["model"] }) {
+export function AnalysisClient({ labSlug, source, responses, canExclude, factorUnits, initialModel = "quadratic", planning }: { labSlug: string; source: AnalysisSource; responses: StudyResponse[]; canExclude: boolean; factorUnits: Record<string, string>; initialModel?: AnalysisParams["model"]; /** The next design's panels (confirmation runs, steepest ascent, augmentation): the study, and whether the viewer may create plans. */ planning?: { studyId: string; canPlan: boolean } }) {
   const [params, setParams] = useState<AnalysisParams>({ response: responses[0]?.name ?? "", model: initialModel, alpha: null, hierarchy: true, transform: "none" });
   const [alphaText, setAlphaText] = useState("0.05");
   const { data, error, isLoading, isValidating, mutate } = useAnalysis(labSlug, source, params);
@@ -210,6 +212,8 @@ export function AnalysisClient({ labSlug, source, responses, canExclude, factorU
             <CurvatureCheck a={a} />
           </section>
           <OptimumPanel a={a} factorUnits={factorUnits} />
+          {planning && source.kind === "plan" && <ConfirmationPanel labSlug={labSlug} studyId={planning.studyId} planId={source.planId} a={a} params={params} factorUnits={factorUnits} canPlan={planning.canPlan} />}
+          {planning && <NextDesignPanel labSlug={labSlug} studyId={planning.studyId} planId={source.kind === "plan" ? source.planId : null} a={a} factorUnits={factorUnits} canPlan={planning.canPlan} />}
           <section className="flex flex-col gap-2" aria-label="Diagnostics">
             <h2>Diagnostics</h2>
             <p className="text-sm text-ink-soft">{canExclude && exclusionSource !== null ? "Click a point to leave its run out of the analysis." : canExclude ? "Click a point to leave its run out (recorded on its plan)." : ""}</p>

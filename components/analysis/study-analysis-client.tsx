@@ -24,7 +24,7 @@ export function StudyAnalysisClient({ labSlug, studyId, plans, initial, response
         {plans.length === 0 && <p className="text-ink-faint">No plan of this study has results yet.</p>}
       </fieldset>
       {chosen.length > 0 ? (
-        <AnalysisClient key={chosen.join(",")} labSlug={labSlug} source={{ kind: "study", studyId, plans: chosen }} responses={responses} canExclude={canExclude} factorUnits={factorUnits} initialModel={initialModel} />
+        <AnalysisClient key={chosen.join(",")} labSlug={labSlug} source={{ kind: "study", studyId, plans: chosen }} responses={responses} canExclude={canExclude} factorUnits={factorUnits} initialModel={initialModel} planning={{ studyId, canPlan: false }} />
       ) : (
         <p className="text-sm text-ink-soft">Tick at least one plan.</p>
       )}

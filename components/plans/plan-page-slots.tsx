@@ -11,6 +11,7 @@
 import type { ReactNode } from "react";
 import type { Role } from "@/lib/auth/roles";
 import type { PlanView } from "@/lib/plans/view";
+import { DerivationPanel } from "./derivation-panel";
 
 export interface PlanAsideProps {
   plan: PlanView;
@@ -27,4 +28,7 @@ export interface PlanAsideEntry {
 }
 
 /** The aside's panels (see the module comment). */
-export const PLAN_PAGE_ASIDE: readonly PlanAsideEntry[] = [];
+export const PLAN_PAGE_ASIDE: readonly PlanAsideEntry[] = [
+  // Where a confirmation or augmentation plan comes from (issue 13).
+  { id: "derivation", Component: DerivationPanel },
+];

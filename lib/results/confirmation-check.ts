@@ -8,6 +8,7 @@
  * point by point.
  */
 import { codeValue } from "../doe/factors";
+import type { PlanState } from "../plans/states";
 import type { FittedModel } from "../stats/fitted-model";
 import { confirmationHolds, predictMeanOf, type ConfirmationVerdict } from "../surface/confirmation";
 import type { ConfirmationDetails, DerivedAnalysis } from "./confirmation-plan";
@@ -16,7 +17,7 @@ import type { AnalysisQuery } from "./schemas";
 
 /** A confirmation plan as its source's analysis reads it. */
 export interface ConfirmationSource {
-  plan: { id: string; name: string; state: string };
+  plan: { id: string; name: string; state: PlanState };
   /** What it was derived with (null when the details are missing). */
   details: ConfirmationDetails | null;
   runs: { run: number; natural: Record<string, number> }[];
@@ -26,7 +27,7 @@ export interface ConfirmationSource {
 
 /** One confirmation point of a confirmation plan, judged. */
 export interface ConfirmationCheck {
-  plan: { id: string; name: string; state: string };
+  plan: { id: string; name: string; state: PlanState };
   /** The analysis the runs were planned from, null when unknown. */
   plannedWith: DerivedAnalysis | null;
   /** The analysis shown is the one the runs were planned from (response, model, pruning, transform). */

@@ -11,6 +11,7 @@
 import type { ResolvedRun } from "../chemistry/design-runs";
 import type { SafetyCheck } from "../doe/safe-envelope";
 import { factorialRunsOf } from "../plans/augmentation";
+import type { PlanState } from "../plans/states";
 import type { FittedModel } from "../stats/fitted-model";
 import type { StudyResponse } from "../studies/schemas";
 import { confirmationChecks, type ConfirmationCheck, type ConfirmationSource } from "./confirmation-check";
@@ -21,7 +22,7 @@ import { steepestAscentOf, type SteepestAscentView } from "./steepest-ascent-pat
 export interface DerivedPlanRef {
   id: string;
   name: string;
-  state: string;
+  state: PlanState;
 }
 
 export interface NextDesign {

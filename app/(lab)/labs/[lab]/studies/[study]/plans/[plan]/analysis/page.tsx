@@ -57,7 +57,7 @@ export default async function PlanAnalysisPage({ params }: { params: Promise<{ l
           No results yet. <Link href={`${base}/plans/${plan.id}/results`}>Enter them</Link> to analyse the plan.
         </Banner>
       ) : (
-        <AnalysisClient labSlug={access.lab.slug} source={{ kind: "plan", planId: plan.id }} responses={results.responses} canExclude={can(access.role, "plans.execute")} factorUnits={factorUnits} initialModel={initialModel} />
+        <AnalysisClient labSlug={access.lab.slug} source={{ kind: "plan", planId: plan.id }} responses={results.responses} canExclude={can(access.role, "plans.execute")} factorUnits={factorUnits} initialModel={initialModel} planning={{ studyId: plan.studyId, canPlan: can(access.role, "plans.edit") }} />
       )}
     </div>
   );
