@@ -7,7 +7,7 @@ import { analyzeSourcesWithModel, type AnalysisAnswer } from "../analysis";
 import { nextDesignOf } from "../next-design";
 import { analysisQuerySchema } from "../schemas";
 import { analysisSource, loadPlanForResults } from "./common";
-import { derivedPlans } from "./derived-plans";
+import { listDerivedPlans } from "./list-derived-plans";
 
 /**
  * The analysis of a plan's results (CONTRACT.md `GET /plans/{plan}/analysis?response=&model=&alpha=&hierarchy=`,
@@ -25,7 +25,7 @@ export async function analyzePlan(opts: { labId: string; planId: string; query: 
   const [source, linked, derived] = await Promise.all([
     analysisSource(p, opts.labId, t),
     withInventoryFacts({ labId: opts.labId, document: p.plan.document }, t),
-    derivedPlans({ labId: opts.labId, planId: p.plan.id }, t),
+    listDerivedPlans({ labId: opts.labId, planId: p.plan.id }, t),
   ]);
   const { answer, model } = analyzeSourcesWithModel([source], p.responses, query, { plan: { id: p.plan.id, name: p.plan.name }, document: linked.document });
   const nextDesign = nextDesignOf({

@@ -16,7 +16,7 @@ const GONE = ["rejected", "cancelled"];
  * analysis of the plan reads of them: each confirmation plan's runs, stored results and
  * derivation details. Rejected and cancelled plans are left out. Reads only.
  */
-export async function derivedPlans(opts: { labId: string; planId: string }, t?: Transaction): Promise<{ confirmations: ConfirmationSource[]; augmentations: DerivedPlanRef[] }> {
+export async function listDerivedPlans(opts: { labId: string; planId: string }, t?: Transaction): Promise<{ confirmations: ConfirmationSource[]; augmentations: DerivedPlanRef[] }> {
   const rows = await Plan.findAll({
     where: { labId: opts.labId, derivedFromPlanId: opts.planId, derivation: { [Op.in]: ["confirmation", "augmentation"] }, state: { [Op.notIn]: GONE } },
     attributes: ["id", "name", "state", "derivation", "document", "derivationDetails", "createdAt"],
