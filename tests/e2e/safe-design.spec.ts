@@ -40,6 +40,11 @@ async function openDemoPlan(page: Page) {
 
 test("a chemist opens the unsafe CCD demo plan, sees the blocking runs named, applies an alternative and sees no blocking caution", async ({ page }, testInfo) => {
   test.setTimeout(180_000);
+  // The panel's requests and the preview's panes run under the production Content-Security-Policy.
+  const violations: string[] = [];
+  page.on("console", (m) => {
+    if (m.type() === "error" && /Content Security Policy/i.test(m.text())) violations.push(m.text());
+  });
   await signIn(page, DEMO.chemist);
   await openDemoPlan(page);
 
@@ -50,6 +55,12 @@ test("a chemist opens the unsafe CCD demo plan, sees the blocking runs named, ap
   const blockedRuns = runNumbers(await blocking.getByTestId("plan-cautions-list-runs").textContent());
   expect(blockedRuns.length).toBeGreaterThan(0);
   await expect(page.getByTestId("plan-cautions-list-notice")).toContainText("planning aids");
+  // The vial map rings the blocked run; pointing at it shows its conditions and what goes into it.
+  const hot = page.getByTestId("plan-vial-map").locator(`g[role="button"][data-run="${blockedRuns[0]}"]`);
+  await hot.hover();
+  await expect(page.getByTestId("plan-vial-map")).toContainText(`Run ${blockedRuns[0]} · vial`);
+  await expect(page.getByTestId("plan-vial-map")).toContainText(`${PLUS_ALPHA_C.toFixed(1)} °C`);
+  await expect(page.getByTestId("plan-vial-map").getByRole("table")).toContainText("µL");
   await page.getByTestId("plan-vial-map").screenshot({ path: testInfo.outputPath("unsafe-ccd-vial-map.png") });
 
   // The chemist works on a duplicate, so the demo keeps its unsafe plan.
@@ -124,4 +135,5 @@ test("a chemist opens the unsafe CCD demo plan, sees the blocking runs named, ap
   await page.emulateMedia({ media: "print" });
   await page.getByTestId("plan-vial-map").screenshot({ path: testInfo.outputPath("safe-design-saved-vial-map-print.png") });
   await page.screenshot({ path: testInfo.outputPath("safe-design-saved-plan-print.png"), fullPage: true });
+  expect(violations).toEqual([]);
 });
