@@ -18,11 +18,12 @@ import { StockLedgerEntry } from "./stock-ledger-entry";
 import { ApiToken } from "./api-token";
 import { Study } from "./study";
 import { Plan } from "./plan";
+import { PlanSignature } from "./plan-signature";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 export { ApiToken };
-export { Study, Plan };
+export { Study, Plan, PlanSignature };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -40,6 +41,7 @@ export function initModels(sequelize: Sequelize): void {
   ApiToken.initModel(sequelize);
   Study.initModel(sequelize);
   Plan.initModel(sequelize);
+  PlanSignature.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -55,4 +57,6 @@ export function initModels(sequelize: Sequelize): void {
   Plan.belongsTo(User, { foreignKey: "authorId", as: "author" });
   Plan.belongsTo(Study, { foreignKey: "studyId", as: "study" });
   Study.hasMany(Plan, { foreignKey: "studyId", as: "plans" });
+  PlanSignature.belongsTo(Plan, { foreignKey: "planId", as: "plan" });
+  Reservation.belongsTo(Plan, { foreignKey: "planId", as: "plan" });
 }

@@ -37,7 +37,7 @@ export async function planHazardFacts(
     const boxes = await Container.findAll({ where: { labId: opts.labId, chemicalId: { [Op.in]: ids } }, transaction: tx });
     const held = await heldByContainer(boxes.map((b) => b.id), tx);
     const today = opts.today ?? todayIso();
-    const intervals = await peroxideIntervalsFor(opts.labId);
+    const intervals = await peroxideIntervalsFor(opts.labId, tx);
     const containers: ContainerFacts[] = boxes.map((b) => ({
       id: b.id,
       barcode: b.barcode,
