@@ -163,8 +163,8 @@ describe("release", () => {
     expect(await heldByContainer(Object.values(stock).flatMap((s) => s.containerIds))).toEqual(heldBefore);
     expect(await Plan.findByPk(plan.id)).toMatchObject({ state: "draft", version: plan.version });
     // The stockkeeper's notice was queued outside the rolled-back release and arrives.
-    await expect.poll(() => smtp.received.some((m) => m.to.includes(SEED.users.stockkeeper.email) && unfoldQuotedPrintable(m.raw).includes(`Potassium phosphate, scarce ${tag}`)), { timeout: 60_000, interval: 250 }).toBe(true);
-  });
+    await expect.poll(() => smtp.received.some((m) => m.to.includes(SEED.users.stockkeeper.email) && unfoldQuotedPrintable(m.raw).includes(`Potassium phosphate, scarce ${tag}`)), { timeout: 90_000, interval: 250 }).toBe(true);
+  }, 120_000);
 
   it("sign-off required: a draft cannot be released without review (409 naming signOffRequired)", async () => {
     const plan = await createPlan(linkChemicals(suzukiHot(), links));
