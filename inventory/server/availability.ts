@@ -7,13 +7,14 @@ import { proposeContainers, type ChemicalFacts, type ContainerFacts } from "../a
 import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
 
 /**
- * Loads what proposeContainers needs for some chemicals of one lab (tenant in every query).
- * With `lock` (inside the caller's transaction), the containers of those chemicals are
- * locked for update in id order first — the order reserveStock locks in — so what is held
- * is read after every competing reservation of them has committed or rolled back.
+ * Loads what proposeContainers needs for some chemicals of one lab (tenant in every
+ * query), plus the chemical records themselves for callers that need more of them. With
+ * `lock` (inside the caller's transaction), the containers of those chemicals are locked
+ * for update in id order first — the order reserveStock locks in — so what is held is read
+ * after every competing reservation of them has committed or rolled back.
  */
-export async function loadStockFacts(labId: string, chemicalIds: string[], t?: Transaction, lock = false): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[] }> {
-  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: chemicalIds } }, transaction: t });
+export async function loadStockFacts(labId: string, chemicalIds: readonly string[], t?: Transaction, lock = false): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[]; records: Chemical[] }> {
+  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: [...chemicalIds] } }, transaction: t });
   const boxes = await Container.findAll({
     where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } },
     order: [["id", "ASC"]],
@@ -22,6 +23,7 @@ export async function loadStockFacts(labId: string, chemicalIds: string[], t?: T
   });
   const held = await heldByContainer(boxes.map((b) => b.id), t);
   return {
+    records: chems,
     chemicals: chems.map((c) => ({
       id: c.id,
       name: c.name,

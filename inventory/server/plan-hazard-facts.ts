@@ -1,11 +1,11 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
+import type { Transaction } from "sequelize";
 import { AppError } from "@/lib/errors/app-error";
 import type { InventoryChemicalFacts } from "@/lib/chemistry/inventory-facts";
 import { inTransaction } from "@/lib/server/db";
-import { Chemical, Container } from "@/lib/server/models";
-import { preferenceOrder, proposeContainers, type ChemicalFacts, type ContainerFacts, type Requirement } from "../availability";
-import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
+import { preferenceOrder, proposeContainers, type ContainerFacts, type Requirement } from "../availability";
+import { loadStockFacts } from "./availability";
+import { peroxideIntervalsFor, todayIso } from "./common";
 
 const toNumber = (v: string | null): number | null => (v === null ? null : Number(v));
 
@@ -29,43 +29,16 @@ export async function planHazardFacts(
   const ids = [...new Set(opts.chemicalIds)];
   if (ids.length === 0) return {};
   return inTransaction(t, async (tx) => {
-    const chems = await Chemical.findAll({ where: { labId: opts.labId, id: { [Op.in]: ids } }, transaction: tx });
+    const { records: chems, chemicals, containers } = await loadStockFacts(opts.labId, ids, tx);
     const missing = ids.filter((id) => !chems.some((c) => c.id === id));
     if (missing.length > 0) {
       throw new AppError("not_found", `No such chemical in this lab: ${missing.join(", ")}.`, missing.map((id) => ({ path: "chemicalId", message: `${id}: no such chemical in this lab` })));
     }
-    const boxes = await Container.findAll({ where: { labId: opts.labId, chemicalId: { [Op.in]: ids } }, transaction: tx });
-    const held = await heldByContainer(boxes.map((b) => b.id), tx);
     const today = opts.today ?? todayIso();
     const intervals = await peroxideIntervalsFor(opts.labId, tx);
-    const containers: ContainerFacts[] = boxes.map((b) => ({
-      id: b.id,
-      barcode: b.barcode,
-      chemicalId: b.chemicalId,
-      dimension: b.dimension,
-      amountBase: BigInt(b.amountBase),
-      heldBase: held.get(b.id) ?? 0n,
-      status: b.status,
-      purityPercent: b.purityPercent,
-      concentration: b.concentration,
-      concentrationUnit: b.concentrationUnit,
-      receivedOn: b.receivedOn,
-      openedOn: b.openedOn,
-      expiresOn: b.expiresOn,
-      peroxideTestedOn: b.peroxideTestedOn,
-    }));
     const out: Record<string, InventoryChemicalFacts> = {};
     for (const chem of chems) {
-      const facts: ChemicalFacts = {
-        id: chem.id,
-        name: chem.name,
-        molarMass: chem.molarMass,
-        density: chem.density,
-        peroxideClass: chem.peroxideClass,
-        ghsStatements: chem.ghsStatements,
-        lowStockBase: null,
-        lowStockDimension: null,
-      };
+      const facts = chemicals.find((c) => c.id === chem.id)!;
       const own = containers.filter((c) => c.chemicalId === chem.id);
       const requirement = opts.requirements?.find((r) => r.chemicalId === chem.id);
       let chosen: ContainerFacts | undefined;

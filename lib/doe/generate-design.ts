@@ -5,6 +5,7 @@
  * blocks, decodes to natural units and sets a seeded random run order.
  */
 import { AppError, parseOrThrow } from "../errors/app-error";
+import { augmentToCentralComposite } from "./augment";
 import { boxBehnkenCoded } from "./box-behnken";
 import { axialPointsCoded, ccdAlpha } from "./central-composite";
 import { blockOfRow, chooseBlockWords } from "./blocking";
@@ -137,37 +138,39 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
       break;
     }
     case "central-composite": {
-      let factorialRows: number[][];
-      const given: Point[] = [];
       if (input.augment) {
-        input.augment.runs.forEach((r, i) => {
-          const coded = r.coded ? names.map((n) => r.coded![n]!) : names.map((n, j) => codeValue(factors[j]!, r.natural![n]!));
-          const natural = r.natural && !r.coded ? names.map((n) => r.natural![n]!) : undefined;
-          const isCentre = coded.every((v) => Math.abs(v) < 1e-9);
-          if (!isCentre && coded.some((v) => Math.abs(Math.abs(v) - 1) > 1e-6)) {
-            throw AppError.field(`augment.runs.${i}`, "is neither a two-level factorial point (±1) nor a centre point");
-          }
-          given.push({ coded, natural, kind: isCentre ? "center" : "factorial", block: 1 });
-        });
-        factorialRows = given.filter((g) => g.kind === "factorial").map((g) => g.coded);
-        if (factorialRows.length < 2) throw AppError.field("augment.runs", "needs at least two factorial points");
-      } else {
-        frac = twoLevelPart(input, k);
-        factorialRows = frac ? frac.rows : fullFactorialCoded(k);
+        // Existing runs augmented with axial and centre runs in a new block: the one
+        // augmentation rule (lib/doe/augment.ts), its field paths under `augment.`.
+        const given: Point[] = input.augment.runs.map((r) => ({
+          coded: r.coded ? names.map((n) => r.coded![n]!) : names.map((n, j) => codeValue(factors[j]!, r.natural![n]!)),
+          natural: r.natural && !r.coded ? names.map((n) => r.natural![n]!) : undefined,
+          kind: "factorial",
+          block: 1,
+        }));
+        for (const g of given) if (g.coded.every((v) => Math.abs(v) < 1e-9)) g.kind = "center";
+        const aug = withPathPrefix("augment.", () =>
+          augmentToCentralComposite(factors, {
+            runs: given.map((g) => g.coded),
+            alpha: input.alpha === "spherical" ? Math.sqrt(k) : input.alpha,
+            centerPoints: nCentre,
+          }),
+        );
+        alpha = aug.alpha;
+        nBlocks = 2;
+        points.push(...given);
+        for (const r of aug.runs) points.push({ coded: names.map((n) => r.coded[n]!), kind: r.kind, block: 2 });
+        break;
       }
+      frac = twoLevelPart(input, k);
+      const factorialRows = frac ? frac.rows : fullFactorialCoded(k);
       alpha = ccdAlpha(input.alpha, k, factorialRows.length);
-      const scale = input.placement === "inscribed" && !input.augment ? 1 / alpha : 1;
-      const twoBlocks = input.blocks === 2 || Boolean(input.augment);
+      const scale = input.placement === "inscribed" ? 1 / alpha : 1;
+      const twoBlocks = input.blocks === 2;
       nBlocks = twoBlocks ? 2 : 1;
       const axialBlock = twoBlocks ? 2 : 1;
-      if (input.augment) {
-        points.push(...given);
-      } else {
-        for (const row of factorialRows) points.push({ coded: row.map((v) => v * scale), kind: "factorial", block: 1 });
-      }
+      for (const row of factorialRows) points.push({ coded: row.map((v) => v * scale), kind: "factorial", block: 1 });
       for (const row of axialPointsCoded(k, alpha)) points.push({ coded: row.map((v) => v * scale), kind: "axial", block: axialBlock });
-      if (input.augment) centre(nCentre, () => 2);
-      else centre(nCentre, (j) => (twoBlocks ? (j % 2) + 1 : 1));
+      centre(nCentre, (j) => (twoBlocks ? (j % 2) + 1 : 1));
       break;
     }
     case "box-behnken": {
@@ -241,4 +244,16 @@ export function generateDesign(raw: unknown | DesignInputRaw, options: DOptimalP
 
 function blockOf(row: readonly number[], words: readonly number[]): number {
   return words.length ? blockOfRow(row, words) : 1;
+}
+
+/** Runs `fn`, putting `prefix` before the field paths of an AppError it throws. */
+function withPathPrefix<T>(prefix: string, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    if (e instanceof AppError) {
+      throw new AppError(e.code, e.message, e.issues.map((i) => ({ ...i, path: i.path ? `${prefix}${i.path}` : prefix.replace(/\.$/, "") })));
+    }
+    throw e;
+  }
 }

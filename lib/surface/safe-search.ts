@@ -11,7 +11,7 @@
  * point returned has been evaluated by the callback and found feasible.
  */
 import type { Rng } from "../doe/randomize";
-import { inRegion, projectOntoRegion, type Objective, type Region } from "./solvers";
+import { inRegion, projectOntoRegion, rankedStarts, type Objective, type Region } from "./solvers";
 
 export interface SafeSearchOptions {
   /** Random points sampled in the region for starts (default 400). */
@@ -46,29 +46,14 @@ export function maximizeWithFeasibility(
   const samples = options.samples ?? 400;
   const nStarts = options.starts ?? 8;
   const maxChecks = options.maxChecks ?? 20_000;
-  const k = seeds[0]?.length ?? region.halfSpaces[0]?.a.length ?? 0;
   let checks = 0;
   const ok = (x: readonly number[]) => {
     if (checks >= maxChecks) return false;
     checks++;
     return feasible(x);
   };
-  const pool: { x: number[]; v: number }[] = [];
-  const consider = (p: readonly number[]) => {
-    const x = projectOntoRegion(region, p);
-    if (x && ok(x)) pool.push({ x, v: obj.f(x) });
-  };
-  seeds.forEach(consider);
-  const spread = region.kind === "sphere" ? region.radius : 1;
-  for (let i = 0; i < samples; i++) consider(Array.from({ length: k }, () => (2 * rng() - 1) * spread));
+  const { pool, starts } = rankedStarts(obj, region, seeds, rng, { samples, starts: nStarts, minDistance2: 1e-4, accept: ok });
   if (pool.length === 0) throw new RangeError("no feasible point");
-  pool.sort((a, b) => b.v - a.v);
-  const starts: number[][] = [];
-  for (const p of pool) {
-    if (starts.length >= nStarts) break;
-    if (starts.some((s) => s.reduce((acc, v, i) => acc + (v - p.x[i]!) ** 2, 0) < 1e-4)) continue;
-    starts.push(p.x);
-  }
   let best = { x: pool[0]!.x, value: pool[0]!.v };
   for (const s of starts) {
     const a = feasibleAscent(obj, region, ok, s);

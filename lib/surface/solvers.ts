@@ -307,30 +307,45 @@ export function compassSearch(obj: Objective, region: Region, start: readonly nu
 }
 
 /**
+ * The candidate starts of a multi-start search: the seed points and `samples` random
+ * points of the box or ball, each projected onto the region and kept when `accept`
+ * allows, ranked by the objective (best first); `starts` are the best of them at least
+ * √minDistance2 apart.
+ */
+export function rankedStarts(
+  obj: Objective,
+  region: Region,
+  seeds: readonly (readonly number[])[],
+  rng: Rng,
+  o: { samples: number; starts: number; minDistance2: number; accept?: (x: readonly number[]) => boolean },
+): { pool: { x: number[]; v: number }[]; starts: number[][] } {
+  const k = region.halfSpaces[0]?.a.length ?? seeds[0]?.length ?? 0;
+  const pool: { x: number[]; v: number }[] = [];
+  const consider = (p: readonly number[]) => {
+    const x = projectOntoRegion(region, p);
+    if (x && (!o.accept || o.accept(x))) pool.push({ x, v: obj.f(x) });
+  };
+  seeds.forEach(consider);
+  const spread = region.kind === "sphere" ? region.radius : 1;
+  for (let i = 0; i < o.samples; i++) consider(Array.from({ length: k }, () => (2 * rng() - 1) * spread));
+  pool.sort((a, b) => b.v - a.v);
+  const starts: number[][] = [];
+  for (const p of pool) {
+    if (starts.length >= o.starts) break;
+    if (starts.some((st) => st.reduce((acc, v, i) => acc + (v - p.x[i]!) ** 2, 0) < o.minDistance2)) continue;
+    starts.push(p.x);
+  }
+  return { pool, starts };
+}
+
+/**
  * Multi-start maximisation over a region: evaluates the objective at the given seed
  * points and at random feasible points, runs projected gradient ascent (then compass
  * search) from the best `nStarts`, and returns the best point found.
  */
 export function multiStartMaximize(obj: Objective, region: Region, seeds: readonly (readonly number[])[], rng: Rng, nStarts = 12, nRandom = 300): { x: number[]; value: number } {
-  const k = region.halfSpaces[0]?.a.length ?? seeds[0]?.length ?? 0;
-  const pool: { x: number[]; v: number }[] = [];
-  const add = (p: readonly number[]) => {
-    const x = projectOntoRegion(region, p);
-    if (x) pool.push({ x, v: obj.f(x) });
-  };
-  seeds.forEach(add);
-  for (let i = 0; i < nRandom; i++) {
-    const p = Array.from({ length: k }, () => (2 * rng() - 1) * (region.kind === "sphere" ? region.radius : 1));
-    add(p);
-  }
+  const { pool, starts } = rankedStarts(obj, region, seeds, rng, { samples: nRandom, starts: nStarts, minDistance2: 1e-6 });
   if (pool.length === 0) throw new RangeError("the region is empty");
-  pool.sort((a, b) => b.v - a.v);
-  const starts: number[][] = [];
-  for (const p of pool) {
-    if (starts.length >= nStarts) break;
-    if (starts.some((s) => s.reduce((acc, v, i) => acc + (v - p.x[i]!) ** 2, 0) < 1e-6)) continue;
-    starts.push(p.x);
-  }
   let best = { x: pool[0]!.x, value: pool[0]!.v };
   for (const s of starts) {
     const a = projectedGradientAscent(obj, region, s);

@@ -5,18 +5,9 @@
  */
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { SEED } from "../support/integration";
+import { routeCtx, signInAs } from "../support/fake-session";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const containers = await import("@/app/api/labs/[lab]/containers/route");
 const containerOne = await import("@/app/api/labs/[lab]/containers/[containerId]/route");
@@ -24,17 +15,15 @@ const adjust = await import("@/app/api/labs/[lab]/containers/[containerId]/adjus
 const reservations = await import("@/app/api/labs/[lab]/reservations/route");
 const chemicals = await import("@/app/api/labs/[lab]/chemicals/route");
 
-const as = (u: { id: string; email: string }) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
-const ctx = <P extends Record<string, string>>(params: P) => ({ params: Promise.resolve({ lab: SEED.labs.kestrel.slug as string, ...params }) });
+const as = signInAs;
+const ctx = routeCtx;
 const get = (path: string) => new Request(`http://test.invalid${path}`);
 const post = (path: string, body: unknown) => new Request(`http://test.invalid${path}`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
 
 const KB101 = "c0a10000-0000-4000-8000-000000000001"; // seeded 4-bromoanisole, 100 mL
 
 beforeEach(() => {
-  who.user = null;
+  signInAs(null);
 });
 
 describe("inventory role checks (route handlers)", () => {

@@ -17,20 +17,11 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { QueryTypes } from "sequelize";
 import { Plan, Reservation } from "@/lib/server/models";
 import { SEED, db } from "../support/integration";
+import { signInAs } from "../support/fake-session";
 import { SmtpCapture, testSmtpPort, unfoldQuotedPrintable } from "../support/smtp-capture";
 import { ceilThousandths, ctx, daysFromToday, linkChemicals, req, stockedChemical, suzuki, suzukiHot, type ErrorJson, type PlanJson } from "../support/plan-api";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
@@ -40,9 +31,7 @@ const cancel = await import("@/app/api/labs/[lab]/plans/[planId]/cancel/route");
 const start = await import("@/app/api/labs/[lab]/plans/[planId]/start/route");
 const timeline = await import("@/app/api/labs/[lab]/plans/[planId]/timeline/route");
 
-const as = (u: { id: string; email: string }) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
+const as = (u: { id: string; email: string }) => signInAs(u);
 const tag = randomUUID().slice(0, 8);
 const smtp = new SmtpCapture(testSmtpPort());
 let studyId = "";

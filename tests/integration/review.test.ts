@@ -19,20 +19,11 @@ import { LOCKOUT, hashPassword } from "@/lib/auth/authenticate";
 import { PLAN_MOVES, PLAN_STATES, findMoveByAction, type PlanAction, type PlanState } from "@/lib/plans/states";
 import { AuditEntry, Membership, Plan, PlanSignature, Reservation, User } from "@/lib/server/models";
 import { SEED, db } from "../support/integration";
+import { signInAs } from "../support/fake-session";
 import { SmtpCapture, testSmtpPort, unfoldQuotedPrintable } from "../support/smtp-capture";
-import { ctx, req, suzuki, suzukiHot, suzukiUnderRated, type ErrorJson, type Json, type PlanJson } from "../support/plan-api";
+import { ctx, req, suzukiHot, suzukiUnderRated, type ErrorJson, type Json, type PlanJson } from "../support/plan-api";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
@@ -44,10 +35,7 @@ const cancel = await import("@/app/api/labs/[lab]/plans/[planId]/cancel/route");
 const start = await import("@/app/api/labs/[lab]/plans/[planId]/start/route");
 const timeline = await import("@/app/api/labs/[lab]/plans/[planId]/timeline/route");
 
-type User_ = { id: string; email: string };
-const as = (u: User_) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
+const as = (u: { id: string; email: string }) => signInAs(u);
 const { chemist, safety } = SEED.users;
 const tag = randomUUID().slice(0, 8);
 const smtp = new SmtpCapture(testSmtpPort());

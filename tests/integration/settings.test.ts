@@ -12,29 +12,17 @@ import { afterAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { DEFAULT_LAB_THRESHOLDS } from "@/lib/hazards/thresholds";
 import { AuditEntry, Lab } from "@/lib/server/models";
 import { SEED } from "../support/integration";
+import { routeCtx, signInAs } from "../support/fake-session";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const settings = await import("@/app/api/labs/[lab]/settings/route");
 const section = await import("@/app/api/labs/[lab]/settings/[section]/route");
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
 
-const as = (u: { id: string; email: string }) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
-const lab = SEED.labs.kestrel.slug;
-const ctx = <P extends Record<string, string>>(params: P, labSlug: string = lab) => ({ params: Promise.resolve({ lab: labSlug, ...params }) });
+const as = signInAs;
+const ctx = routeCtx;
 const req = (method = "GET", body?: unknown) =>
   new Request("http://test.invalid/x", { method, headers: body === undefined ? {} : { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });
 
@@ -56,7 +44,7 @@ const put = (name: string, body: unknown) => section.PUT(req("PUT", body), ctx({
 const original = { settings: null as SettingsJson["settings"] | null };
 
 beforeEach(() => {
-  who.user = null;
+  signInAs(null);
 });
 
 afterAll(async () => {

@@ -7,27 +7,16 @@ import { randomUUID } from "node:crypto";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { AuditEntry, Study } from "@/lib/server/models";
 import { SEED } from "../support/integration";
+import { routeCtx, signInAs } from "../support/fake-session";
 
-const who = vi.hoisted(() => ({ user: null as null | { id: string; email: string; name: string } }));
-vi.mock("@/lib/auth/session", () => ({
-  currentUser: async () => who.user,
-  requireUser: async () => {
-    if (!who.user) {
-      const { AppError } = await import("@/lib/errors/app-error");
-      throw new AppError("unauthenticated", "Sign in first.");
-    }
-    return who.user;
-  },
-}));
+vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyOne = await import("@/app/api/labs/[lab]/studies/[studyId]/route");
 
-const as = (u: { id: string; email: string }) => {
-  who.user = { id: u.id, email: u.email, name: u.email };
-};
+const as = signInAs;
 const lab = SEED.labs.kestrel.slug;
-const ctx = <P extends Record<string, string>>(params: P, labSlug: string = lab) => ({ params: Promise.resolve({ lab: labSlug, ...params }) });
+const ctx = routeCtx;
 const req = (path: string, method = "GET", body?: unknown) =>
   new Request(`http://test.invalid${path}`, { method, headers: body === undefined ? {} : { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });
 
@@ -46,7 +35,7 @@ const newStudy = (name: string) => ({
 });
 
 beforeEach(() => {
-  who.user = null;
+  signInAs(null);
 });
 
 describe("studies API", () => {

@@ -13,7 +13,8 @@ export type Json = Record<string, unknown>;
 export const lab = SEED.labs.kestrel.slug;
 export const LAB_ID = SEED.labs.kestrel.id;
 
-export const ctx = <P extends Record<string, string>>(params: P, labSlug: string = lab) => ({ params: Promise.resolve({ lab: labSlug, ...params }) });
+/** The route context Next passes a handler (tests/support/fake-session.ts). */
+export { routeCtx as ctx } from "./fake-session";
 export const req = (method = "GET", body?: unknown) =>
   new Request("http://test.invalid/x", { method, headers: body === undefined ? {} : { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });
 

@@ -167,6 +167,20 @@ describe("central composite designs", () => {
     expect(d.runs.slice(0, 5).map((r) => r.runOrder)).toEqual([1, 2, 3, 4, 5]);
     expect(d.alpha).toBeCloseTo(Math.SQRT2, 12); // F = 4 existing factorial points
   });
+  it("an augmentation goes through the one augmentation rule: a run that is neither ±1 nor centre is named under augment.", () => {
+    const existing = [{ coded: { x1: -1, x2: -1 } }, { coded: { x1: 1, x2: -1 } }, { coded: { x1: 0.5, x2: 1 } }, { coded: { x1: 1, x2: 1 } }];
+    try {
+      generateDesign({ factors: factors(2), design: "central-composite", augment: { runs: existing }, seed: 3 });
+      expect.unreachable("a half-level run is not a factorial point");
+    } catch (e) {
+      expect((e as { issues: { path: string }[] }).issues.map((i) => i.path)).toEqual(["augment.runs.2"]);
+    }
+    // Spherical α = √k (PRODUCT.md "Computation") for the augmentation too.
+    const sph = generateDesign({ factors: factors(3), design: "central-composite", alpha: "spherical", augment: { runs: [
+      { coded: { x1: -1, x2: -1, x3: -1 } }, { coded: { x1: 1, x2: -1, x3: 1 } }, { coded: { x1: -1, x2: 1, x3: 1 } }, { coded: { x1: 1, x2: 1, x3: -1 } },
+    ] }, seed: 1 });
+    expect(sph.alpha).toBeCloseTo(Math.sqrt(3), 12);
+  });
   it("two blocks: factorial part in block 1, axial part in block 2, centre points shared", () => {
     const d = generateDesign({ factors: factors(3), design: "central-composite", blocks: 2, centerPoints: 4, randomize: false });
     expect(d.runs.filter((r) => r.kind === "axial").every((r) => r.block === 2)).toBe(true);
