@@ -45,3 +45,26 @@ export function runCase(c: BenchCase): BenchResult & { notes: string[] } {
   const result: BenchResult = { name: c.name, medianMs: median, minMs: times[0]!, maxMs: times[times.length - 1]!, targetMs: c.targetMs, repeat };
   return { ...result, notes: c.note ? c.note(result, state) : [] };
 }
+
+/** A case whose work is asynchronous (e.g. a PDF rendered through a promise): each timed run is awaited. */
+export interface AsyncBenchCase extends Omit<BenchCase, "run"> {
+  runAsync: (state: unknown) => Promise<unknown>;
+}
+
+export async function runCaseAsync(c: AsyncBenchCase): Promise<BenchResult & { notes: string[] }> {
+  const repeat = c.repeat ?? 15;
+  const warmup = c.warmup ?? 3;
+  const state = c.setup ? c.setup() : undefined;
+  for (let i = 0; i < warmup; i++) await c.runAsync(state);
+  const times: number[] = [];
+  for (let i = 0; i < repeat; i++) {
+    const t0 = performance.now();
+    await c.runAsync(state);
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  const mid = Math.floor(times.length / 2);
+  const median = times.length % 2 ? times[mid]! : (times[mid - 1]! + times[mid]!) / 2;
+  const result: BenchResult = { name: c.name, medianMs: median, minMs: times[0]!, maxMs: times[times.length - 1]!, targetMs: c.targetMs, repeat };
+  return { ...result, notes: c.note ? c.note(result, state) : [] };
+}

@@ -6,7 +6,7 @@
 import { readdirSync } from "node:fs";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { join } from "node:path";
-import { runCase, type BenchCase } from "./harness";
+import { runCase, runCaseAsync, type AsyncBenchCase, type BenchCase } from "./harness";
 
 const dir = fileURLToPath(new URL(".", import.meta.url));
 const filter = process.argv[2] ?? "";
@@ -15,10 +15,10 @@ const files = readdirSync(dir).filter((f) => f.endsWith(".bench.ts")).sort();
 console.log(`Tareline benchmarks on ${process.version}, ${new Date().toISOString()}`);
 console.log("case | median ms | min–max ms | target ms | runs | verdict");
 for (const file of files) {
-  const mod = (await import(pathToFileURL(join(dir, file)).href)) as { cases: BenchCase[] };
+  const mod = (await import(pathToFileURL(join(dir, file)).href)) as { cases: Array<BenchCase | AsyncBenchCase> };
   for (const c of mod.cases) {
     if (filter && !c.name.includes(filter)) continue;
-    const r = runCase(c);
+    const r = "runAsync" in c ? await runCaseAsync(c) : runCase(c);
     const verdict = r.medianMs <= r.targetMs ? "meets target" : "OVER TARGET";
     console.log(
       `${r.name} | ${r.medianMs.toFixed(2)} | ${r.minMs.toFixed(2)}–${r.maxMs.toFixed(2)} | ${r.targetMs} | ${r.repeat} | ${verdict}`,

@@ -12,7 +12,7 @@
 //   node scripts/test.mjs unit -- path    extra arguments go to the suite's runner
 import { mkdirSync, readFileSync, existsSync, rmSync } from "node:fs";
 import { step, fail } from "./lib/log.mjs";
-import { ensureNodeModules, ensureChromium } from "./lib/deps.mjs";
+import { ensureNodeModules, ensureChromium, ensurePoppler } from "./lib/deps.mjs";
 import { acquireLock } from "./lib/lock.mjs";
 import { assertPortFree, freePort } from "./lib/ports.mjs";
 
@@ -124,7 +124,10 @@ try {
     record(project, j.numPassedTests, failed, j.numPendingTests + (j.numTodoTests ?? 0));
   };
   try {
-    if (suites.includes("unit")) vitest("unit", baseEnv);
+    if (suites.includes("unit")) {
+      ensurePoppler(); // the report tests read their PDFs with pdftotext and render them with pdftoppm
+      vitest("unit", baseEnv);
+    }
     if (suites.includes("integration")) vitest("integration", env);
     if (suites.includes("e2e")) await e2e();
   } finally {

@@ -17,3 +17,4 @@ export * from "./sealed-vessel";
 export * from "./caution-rules";
 export * from "./plan-cautions";
 export * from "./vessel-pressure";
+export * from "./ghs-pictograms";

@@ -53,3 +53,11 @@ export function ensureChromium() {
   if (!existsSync("/usr/bin/chromium")) throw new Error("chromium was installed but /usr/bin/chromium is missing.");
   return "/usr/bin/chromium";
 }
+
+/** pdftotext and pdftoppm (Debian's poppler-utils): the report tests read and render the PDFs with them. */
+export function ensurePoppler() {
+  if (existsSync("/usr/bin/pdftotext") && existsSync("/usr/bin/pdftoppm")) return "/usr/bin/pdftotext";
+  aptInstall("poppler-utils", "pdftotext and pdftoppm for the PDF report tests");
+  if (!existsSync("/usr/bin/pdftotext")) throw new Error("poppler-utils was installed but /usr/bin/pdftotext is missing.");
+  return "/usr/bin/pdftotext";
+}
