@@ -19,7 +19,7 @@ export interface PlanSignature {
   contentHash: string;
   valid: boolean;
   /** The decision signed (the meaning says it in words). */
-  decision: ReviewDecision;
+  decision?: ReviewDecision;
 }
 
 /** A reservation line of the plan (held, consumed or released), filled in by release. */

@@ -18,8 +18,9 @@ import { QueryTypes } from "sequelize";
 import { Plan, Reservation } from "@/lib/server/models";
 import { SEED, db } from "../support/integration";
 import { signInAs } from "../support/fake-session";
-import { SmtpCapture, testSmtpPort, unfoldQuotedPrintable } from "../support/smtp-capture";
-import { ceilThousandths, ctx, daysFromToday, linkChemicals, req, stockedChemical, suzuki, suzukiHot, type ErrorJson, type PlanJson } from "../support/plan-api";
+import { SmtpCapture, attachmentContent, testSmtpPort, unfoldQuotedPrintable } from "../support/smtp-capture";
+import { escapeRegExp, flat, pdfText } from "../unit/reports/pdf-tools";
+import { ceilThousandths, ctx, daysFromToday, linkChemicals, req, stockedChemical, suzuki, suzukiHot, type ErrorJson, type Json, type PlanJson } from "../support/plan-api";
 
 vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
@@ -30,6 +31,8 @@ const release = await import("@/app/api/labs/[lab]/plans/[planId]/release/route"
 const cancel = await import("@/app/api/labs/[lab]/plans/[planId]/cancel/route");
 const start = await import("@/app/api/labs/[lab]/plans/[planId]/start/route");
 const timeline = await import("@/app/api/labs/[lab]/plans/[planId]/timeline/route");
+const prepSheet = await import("@/app/api/labs/[lab]/plans/[planId]/prep-sheet.pdf/route");
+const worklist = await import("@/app/api/labs/[lab]/plans/[planId]/worklist.csv/route");
 
 const as = (u: { id: string; email: string }) => signInAs(u);
 const tag = randomUUID().slice(0, 8);
@@ -186,6 +189,58 @@ describe("release", () => {
     as(SEED.users.harrowChemist);
     expect((await post(release, plan.id)).status).toBe(404);
     expect(await Plan.findByPk(plan.id)).toMatchObject({ state: "draft", version: plan.version });
+  });
+});
+
+describe("the prep sheet and the worklist", () => {
+  it("are served as PDF and CSV, and the release mail to the author carries both", async () => {
+    const plan = await createPlan({ ...linkChemicals(suzuki(), links), name: `Sheets ${tag}` });
+    expect((await post(release, plan.id)).status).toBe(200);
+    const released = await getPlan(plan.id);
+    const sheet = released.runSheet as unknown as { runs: Array<{ run: number; runOrder: number; temperatureC: number; dispense: Array<{ step: number; name: string; kind: string; massMg: number | null; volumeUl: number | null }> }> };
+
+    const pdfRes = await prepSheet.GET(req(), ctx({ planId: plan.id }));
+    expect(pdfRes.status).toBe(200);
+    expect(pdfRes.headers.get("content-type")).toBe("application/pdf");
+    const pdf = Buffer.from(await pdfRes.arrayBuffer());
+    expect(pdf.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    // pdftotext (poppler) reads the plan's name and the first vial's first dispense row: by the vial-map
+    // rule (lib/plans/vial-map.ts) the earliest run in run order at the lowest temperature sits at 1:A1.
+    const text = pdfText(pdf);
+    expect(flat(text)).toContain(`Sheets ${tag}`);
+    const coldest = Math.min(...sheet.runs.map((r) => r.temperatureC));
+    const first = sheet.runs.filter((r) => r.temperatureC === coldest).sort((a, b) => a.runOrder - b.runOrder)[0]!;
+    const d = first.dispense[0]!;
+    const v = d.kind === "solid" ? d.massMg! : d.volumeUl!;
+    const amount = `${v < 10 ? v.toFixed(2) : v < 100 ? v.toFixed(1) : v.toFixed(0)} ${d.kind === "solid" ? "mg" : "µL"}`; // the sheet's rounding (docs/reports.md)
+    expect(text).toMatch(new RegExp(`\\n\\s*1:A1\\s+${first.run}\\s+${escapeRegExp(amount)}\\s*\\n`));
+    expect(flat(text)).toContain("planning aids");
+
+    const csvRes = await worklist.GET(req(), ctx({ planId: plan.id }));
+    expect(csvRes.status).toBe(200);
+    expect(csvRes.headers.get("content-type")).toMatch(/^text\/csv/);
+    const csv = await csvRes.text();
+    const lines = csv.trim().split(/\r\n/);
+    expect(lines[0]).toBe("order,step,block,vial position,vial,run,add,amount,unit,from,source");
+    expect(lines).toHaveLength(1 + sheet.runs.reduce((a, r) => a + r.dispense.length, 0)); // one row per dispense step
+
+    // The release mail, built in the worker, reaches the author with both attached.
+    const mine = () => smtp.received.find((m) => m.to.includes(SEED.users.chemist.email) && unfoldQuotedPrintable(m.raw).includes(`Released: Sheets ${tag}`));
+    await expect.poll(() => mine() !== undefined, { timeout: 90_000, interval: 250 }).toBe(true);
+    const mail = mine()!;
+    const attachedPdf = attachmentContent(mail.raw, `Sheets-${tag}.prep-sheet.pdf`);
+    expect(attachedPdf?.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(flat(pdfText(attachedPdf!))).toContain(`Sheets ${tag}`);
+    expect(attachmentContent(mail.raw, `Sheets-${tag}.worklist.csv`)?.toString("utf8")).toBe(csv);
+  }, 120_000);
+
+  it("a plan whose amounts cannot work has no sheet (409)", async () => {
+    const doc = suzuki();
+    (doc.recipe as Json).scaleMmol = 40; // 40 mmol in a 4 mL vial: far past the vial's volume
+    const plan = await createPlan(doc);
+    expect(plan.runSheet).toBeNull();
+    expect((await prepSheet.GET(req(), ctx({ planId: plan.id }))).status).toBe(409);
+    expect((await worklist.GET(req(), ctx({ planId: plan.id }))).status).toBe(409);
   });
 });
 

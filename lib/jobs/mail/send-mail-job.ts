@@ -2,7 +2,7 @@ import "server-only";
 import { z } from "zod";
 import { deliverMail } from "@/lib/server/mail";
 import { defineJob } from "../define-job";
-import { mailContentSchema, mailMessageSchema, type MailMessage } from "./message";
+import { mailMessageSchema, renderedContentSchema, type MailMessage } from "./message";
 import type { MailRenderer } from "./renderer";
 import { MAIL_RENDERERS, MAIL_RENDERER_NAMES } from "./renderers";
 
@@ -22,7 +22,7 @@ async function messageOf(mail: z.output<typeof outgoingMailSchema>): Promise<Mai
   if (!("render" in mail)) return mail;
   // Each renderer parses its own input: seen through the common interface, any of them fits.
   const renderer: MailRenderer = MAIL_RENDERERS[mail.render];
-  const content = mailContentSchema.parse(await renderer.render(renderer.input.parse(mail.input)));
+  const content = renderedContentSchema.parse(await renderer.render(renderer.input.parse(mail.input)));
   return { ...content, to: mail.to };
 }
 

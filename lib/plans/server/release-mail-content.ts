@@ -5,10 +5,13 @@ import { PLANNING_NOTICE } from "@/lib/hazards/caution-rules";
 import { cautionLines, planPaths } from "../notifications";
 import { getPlan } from "./get-plan";
 import { appLink, labOf } from "./plan-mail";
+import { prepSheetOf, worklistOf } from "./plan-sheets";
 
 /**
  * The release e-mail's content (the "plan-released" renderer, run in the job worker): what
- * was released and reserved, with links; safe to build more than once for one job.
+ * was released and reserved, with links, and the prep sheet PDF and the dispense worklist
+ * CSV attached (lib/plans/server/plan-sheets.ts, the routes' own functions); safe to build
+ * more than once for one job.
  * @throws Error when the plan is gone (the attempt fails and is retried, then given up).
  */
 export async function releaseMailContent(input: { labId: string; planId: string; appUrl?: string }): Promise<MailContentInput> {
@@ -18,7 +21,13 @@ export async function releaseMailContent(input: { labId: string; planId: string;
   const lab = await labOf(input.labId);
   const link = appLink(planPaths.plan(lab.slug, plan.studyId, plan.id), input.appUrl);
   const held = plan.reservations.filter((r) => r.status === "held");
+  const sheet = await prepSheetOf(plan, lab.name);
+  const worklist = worklistOf(plan);
   return {
+    attachments: [
+      { filename: sheet.filename, contentType: "application/pdf", contentBase64: sheet.pdf.toString("base64") },
+      { filename: worklist.filename, contentType: "text/csv", contentBase64: Buffer.from(worklist.csv, "utf8").toString("base64") },
+    ],
     subject: `Released: ${plan.name}`.slice(0, 300),
     text: [
       `Your plan "${plan.name}" (${plan.studyName}) in ${lab.name} is released.`,
@@ -30,6 +39,7 @@ export async function releaseMailContent(input: { labId: string; planId: string;
       plan.cautions.length ? "Cautions:" : "No cautions.",
       ...cautionLines(plan.cautions),
       "",
+      "Attached: the prep sheet (PDF) and the dispense worklist (CSV).",
       `The plan: ${link}`,
       "",
       PLANNING_NOTICE,
