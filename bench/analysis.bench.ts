@@ -23,7 +23,7 @@ const PYTHON = "/usr/bin/python3";
 const six = Array.from({ length: 6 }, (_, i) => ({ name: `x${i + 1}`, low: 0, high: 10 }));
 
 /** A quadratic with some inactive terms, plus seeded noise (the same surface as doe (a)). */
-function response(x: readonly number[], rng: () => number): number {
+export function response(x: readonly number[], rng: () => number): number {
   const [a = 0, b = 0, c = 0, d = 0, e = 0, f = 0] = x;
   return 60 + 4 * a - 3 * b + 2 * c + 0.5 * d + 1.5 * a * b - 2 * a * a - b * b - 0.8 * e * e + 0.3 * f + (rng() - 0.5);
 }
@@ -32,7 +32,7 @@ function response(x: readonly number[], rng: () => number): number {
 // the intercept stays; with hierarchy a term stays while a term containing it is in the
 // model; the largest p above α leaves; p within 1e-9 of the largest tie, and the term
 // latest in model order leaves first.
-const PY_SCRIPT = String.raw`
+export const PY_SCRIPT = String.raw`
 import json, sys, time
 import numpy as np
 import statsmodels.api as sm
@@ -69,7 +69,7 @@ print(json.dumps({"kept": active, "coefficients": list(res.params), "medianMs": 
 `;
 
 /** Makes sure statsmodels can be imported: installs Debian's python3-statsmodels as root when missing. */
-function statsmodelsReady(): string | null {
+export function statsmodelsReady(): string | null {
   const probe = () => spawnSync(PYTHON, ["-c", "import statsmodels, numpy"], { stdio: "ignore" }).status === 0;
   if (probe()) return null;
   if (process.getuid?.() !== 0) return "statsmodels is not installed and this is not root: apt-get install python3-statsmodels to compare";

@@ -19,6 +19,16 @@ export interface BenchCase {
   note?: (result: BenchResult, state: unknown) => string[];
 }
 
+/**
+ * A case measured by its own means rather than timed runs (a load test against the running
+ * app): it returns the figure compared with the target, a line of detail, and notes.
+ */
+export interface MeasuredBenchCase {
+  name: string;
+  targetMs: number;
+  measure: () => Promise<{ valueMs: number; detail: string; notes: string[] }>;
+}
+
 export interface BenchResult {
   name: string;
   medianMs: number;

@@ -19,11 +19,16 @@ import { ApiToken } from "./api-token";
 import { Study } from "./study";
 import { Plan } from "./plan";
 import { PlanSignature } from "./plan-signature";
+import { DemoStep } from "./demo-step";
+import { PlanResult } from "./plan-result";
+import { AnalysisExclusion } from "./analysis-exclusion";
 
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 export { ApiToken };
 export { Study, Plan, PlanSignature };
+export { DemoStep };
+export { PlanResult, AnalysisExclusion };
 
 export function initModels(sequelize: Sequelize): void {
   Lab.initModel(sequelize);
@@ -42,6 +47,9 @@ export function initModels(sequelize: Sequelize): void {
   Study.initModel(sequelize);
   Plan.initModel(sequelize);
   PlanSignature.initModel(sequelize);
+  DemoStep.initModel(sequelize);
+  PlanResult.initModel(sequelize);
+  AnalysisExclusion.initModel(sequelize);
 
   Membership.belongsTo(Lab, { foreignKey: "labId", as: "lab" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -59,4 +67,6 @@ export function initModels(sequelize: Sequelize): void {
   Study.hasMany(Plan, { foreignKey: "studyId", as: "plans" });
   PlanSignature.belongsTo(Plan, { foreignKey: "planId", as: "plan" });
   Reservation.belongsTo(Plan, { foreignKey: "planId", as: "plan" });
+  PlanResult.belongsTo(User, { foreignKey: "enteredBy", as: "enteredByUser" });
+  AnalysisExclusion.belongsTo(User, { foreignKey: "excludedBy", as: "excludedByUser" });
 }

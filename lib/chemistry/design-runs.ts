@@ -6,7 +6,7 @@
  * drives temperature.
  */
 import { AppError } from "../errors/app-error";
-import { codeValue, decodeValue, generateDesign } from "../doe";
+import { codeValue, decodeValue, generateDesign, type Factor } from "../doe";
 import type { PlanDocument } from "./plan-document";
 
 /** One run with both coded and natural values of every factor. */
@@ -17,6 +17,22 @@ export interface ResolvedRun {
   block: number | string | null;
   coded: Record<string, number>;
   natural: Record<string, number>;
+}
+
+/**
+ * The design engine's input (the `design` verb's) for a plan whose design is a spec: the
+ * design settings with the factors (without their bindings), and runs grouped by the
+ * temperature factor unless the plan names its own hard-to-change factor. What
+ * `resolveRuns` generates from, and what safe-design alternatives start from.
+ */
+export function planDesignInput(doc: PlanDocument): Record<string, unknown> & { factors: Factor[] } {
+  const temperatureFactor = doc.factors.find((f) => f.binding.kind === "temperature");
+  const settings: Record<string, unknown> = { ...doc.design };
+  if (settings.hardToChange === undefined && temperatureFactor) settings.hardToChange = temperatureFactor.name;
+  return {
+    ...settings,
+    factors: doc.factors.map((f) => ({ name: f.name, low: f.low, high: f.high, unit: f.unit, scale: f.scale })),
+  };
 }
 
 /**
@@ -54,13 +70,7 @@ export function resolveRuns(doc: PlanDocument): ResolvedRun[] {
       };
     });
   }
-  const temperatureFactor = factors.find((f) => f.binding.kind === "temperature");
-  const settings: Record<string, unknown> = { ...doc.design };
-  if (settings.hardToChange === undefined && temperatureFactor) settings.hardToChange = temperatureFactor.name;
-  const input = {
-    ...settings,
-    factors: factors.map((f) => ({ name: f.name, low: f.low, high: f.high, unit: f.unit, scale: f.scale })),
-  };
+  const input = planDesignInput(doc);
   let out;
   try {
     out = generateDesign(input);

@@ -72,6 +72,12 @@ export interface SafeAlternatives {
 export interface SafeAlternativesOptions {
   /** The model for the D-efficiencies (default: the input's model for central composite, Box–Behnken and d-optimal designs, `interaction` for a full factorial, `linear` for a fraction). */
   model?: ModelSpec;
+  /**
+   * The alternatives to compute (default: all of ALTERNATIVE_KINDS); the others are left
+   * out of the result. The D-optimal search is the slow one (seconds for six factors), so an
+   * editor can ask for the others first and for "d-optimal" on its own.
+   */
+  kinds?: readonly AlternativeKind[];
 }
 
 type Verdict = (natural: Record<string, number>) => string | null;
@@ -154,12 +160,15 @@ export function safeDesignAlternatives(raw: unknown, blocked: PointVerdict, opti
   const make: Make = (kind, summary, alt, changedFactors = []) => ({ kind, available: true, summary, changedFactors, ...judge(alt, verdict, ref) });
   const offer = (kind: AlternativeKind, summary: string, alt: DesignInputRaw) => alternatives.push(make(kind, summary, alt));
 
+  const wanted = new Set<AlternativeKind>(options.kinds ?? ALTERNATIVE_KINDS);
   const isCcd = input.design === "central-composite";
   const ccdOnly = "applies to central composite designs";
   const alpha0 = originalDesign.alpha ?? 1;
 
   // Face-centred and inscribed.
-  if (!isCcd) alternatives.push(unavailable("face-centered", ccdOnly), unavailable("inscribed", ccdOnly));
+  if (!wanted.has("face-centered") && !wanted.has("inscribed")) {
+    // Not asked for.
+  } else if (!isCcd) alternatives.push(unavailable("face-centered", ccdOnly), unavailable("inscribed", ccdOnly));
   else if (input.augment) {
     alternatives.push(unavailable("face-centered", "an augmentation keeps the runs already made"), unavailable("inscribed", "an augmentation keeps the runs already made"));
   } else {
@@ -171,7 +180,9 @@ export function safeDesignAlternatives(raw: unknown, blocked: PointVerdict, opti
   }
 
   // Smaller α: the largest α ≥ 1 that keeps every axial run unblocked.
-  if (!isCcd) alternatives.push(unavailable("smaller-alpha", ccdOnly));
+  if (!wanted.has("smaller-alpha")) {
+    // Not asked for.
+  } else if (!isCcd) alternatives.push(unavailable("smaller-alpha", ccdOnly));
   else if (input.augment || input.placement === "inscribed") {
     alternatives.push(unavailable("smaller-alpha", input.augment ? "an augmentation keeps the runs already made" : "the axial runs of an inscribed design sit at the factor limits"));
   } else {
@@ -189,12 +200,13 @@ export function safeDesignAlternatives(raw: unknown, blocked: PointVerdict, opti
   }
 
   // Narrower range of the offending factor.
-  alternatives.push(narrowerRange(input, base, original, verdict, make));
+  if (wanted.has("narrower-range")) alternatives.push(narrowerRange(input, base, original, verdict, make));
 
   // D-optimal over the candidate set without the blocked candidates.
-  alternatives.push(dOptimalAlternative(input, base, originalDesign, model, verdict, make));
+  if (wanted.has("d-optimal")) alternatives.push(dOptimalAlternative(input, base, originalDesign, model, verdict, make));
 
-  return { model, original, alternatives };
+  // Face-centred and inscribed are decided together above; keep only what was asked for.
+  return { model, original, alternatives: alternatives.filter((a) => wanted.has(a.kind)) };
 }
 
 /** Generates and judges an alternative from its input. */

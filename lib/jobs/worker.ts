@@ -15,6 +15,7 @@ import PgBoss from "pg-boss";
 import { serverEnv } from "@/lib/server/env";
 import { JOBS } from "./catalog";
 import { JOB_SCHEMA, jobConfig } from "./config";
+import { ensureQueues } from "./queues";
 import { runJob } from "./run-job";
 
 const log = (message: string) => console.log(`${new Date().toISOString()} ${message}`);
@@ -33,11 +34,8 @@ async function main(): Promise<void> {
   boss.on("error", (error) => log(`Job worker: pg-boss reported an error: ${error.message}`));
   await boss.start();
 
+  await ensureQueues(boss, config);
   for (const job of JOBS) {
-    const policy = { retryLimit: config.retryLimit, retryDelay: config.retryDelaySeconds, retryBackoff: true, expireInSeconds: job.expireInSeconds };
-    await boss.createQueue(job.name, { name: job.name, ...policy });
-    // A queue that existed keeps its old settings on createQueue; bring them up to date.
-    await boss.updateQueue(job.name, { name: job.name, ...policy });
     for (let i = 0; i < config.concurrency; i++) {
       await boss.work<unknown>(job.name, { pollingIntervalSeconds: config.pollSeconds, batchSize: 1, includeMetadata: true }, async (batch) => {
         for (const j of batch) {

@@ -11,6 +11,8 @@ import type { RunSheet } from "../chemistry/run-sheet";
 import type { PlanDocumentInput } from "../chemistry/plan-document";
 import { PLANNING_NOTICE } from "../hazards/caution-rules";
 import type { PlanCautionReport } from "../hazards/plan-cautions";
+import { todayIsoUtc } from "../hazards/iso-date";
+import { contentHash } from "./content-hash";
 import { DOCUMENT_PATH } from "./document";
 
 export interface PlanProblem {
@@ -48,11 +50,56 @@ export function splitReport(report: PlanReport, inventoryIssues: FieldIssue[] = 
 /**
  * Evaluates a stored plan document (with the inventory's facts applied, when it links
  * chemicals) with the `plan` verb's engine function. A plan whose run sheet cannot be
- * built is not releasable.
+ * built is not releasable. The result is shared with other callers (cached, below): read it,
+ * do not change it.
  */
 export function evaluatePlan(doc: PlanDocumentInput, inventoryIssues: FieldIssue[] = []): PlanEvaluation {
+  const key = evaluationKey(doc);
+  let ev = key === null ? undefined : cache.get(key);
+  if (ev) {
+    cache.delete(key!);
+  } else {
+    ev = deepFreeze(computeEvaluation(doc));
+    if (cache.size >= CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
+  }
+  if (key !== null) cache.set(key, ev);
+  return { ...ev, inventoryIssues };
+}
+
+/**
+ * Evaluations are cached, most recently used kept (a plan page's data is asked for again and
+ * again; a 96-run plan takes tens of milliseconds, a D-optimal spec a search). The key is all
+ * the evaluation depends on: the SHA-256 of the canonical JSON of the document as evaluated —
+ * the stored content with the inventory's facts already applied (statements, flags, the
+ * dates of the containers it would use) — and the date the cautions count container ages
+ * from (the document's `now`, else today in UTC, as the caution engine takes it). Nothing
+ * else invalidates an entry: a new fact or a new day is a new key. Entries are frozen, so a
+ * caller cannot change what the next one gets.
+ */
+const CACHE_ENTRIES = 64;
+const cache = new Map<string, Omit<PlanEvaluation, "inventoryIssues">>();
+
+function evaluationKey(doc: PlanDocumentInput): string | null {
   try {
-    return splitReport(planReport(doc), inventoryIssues);
+    return `${contentHash(doc)}|${doc.now ?? todayIsoUtc()}`;
+  } catch {
+    // A value JSON cannot carry: not cacheable (planReport says what is wrong).
+    return null;
+  }
+}
+
+function deepFreeze<T>(value: T): T {
+  if (value && typeof value === "object" && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const v of Object.values(value)) deepFreeze(v);
+  }
+  return value;
+}
+
+function computeEvaluation(doc: PlanDocumentInput): Omit<PlanEvaluation, "inventoryIssues"> {
+  try {
+    const { inventoryIssues: _none, ...ev } = splitReport(planReport(doc));
+    return ev;
   } catch (e) {
     if (e instanceof AppError && (e.code === "infeasible" || e.code === "invalid_input")) {
       return {
@@ -64,7 +111,6 @@ export function evaluatePlan(doc: PlanDocumentInput, inventoryIssues: FieldIssue
         perRun: [],
         notice: PLANNING_NOTICE,
         problem: { code: e.code, message: e.message, issues: e.issues.map((i) => ({ ...i, path: i.path ? `${DOCUMENT_PATH}.${i.path}` : DOCUMENT_PATH })) },
-        inventoryIssues,
       };
     }
     throw e;

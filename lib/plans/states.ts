@@ -117,6 +117,15 @@ export const EDITABLE_STATES: Readonly<Partial<Record<PlanState, PlanState>>> = 
   approved: "draft",
 };
 
+/**
+ * States whose results may be entered (issue 12; CONTRACT.md `PUT /plans/{plan}/results`):
+ * a released plan (its first results move it to running, the move `released → running`),
+ * a running one (the result that completes it moves it to results_entered, the move
+ * `running → results_entered`), and one whose results are entered, for corrections (it
+ * stays there). Every other state refuses results (409).
+ */
+export const RESULTS_STATES: readonly PlanState[] = ["released", "running", "results_entered"];
+
 /** Only drafts can be deleted; anything further along is cancelled instead, so its history stays. */
 export const DELETABLE_STATES: readonly PlanState[] = ["draft"];
 

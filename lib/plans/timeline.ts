@@ -39,6 +39,7 @@ const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === "obj
 const stateLabel = (v: unknown) => (typeof v === "string" && (PLAN_STATES as readonly string[]).includes(v) ? PLAN_STATE_LABELS[v as PlanState] : null);
 const text = (v: unknown) => (typeof v === "string" && v !== "" ? v : null);
 
+const RESULTS: Record<string, true> = { "plan.results_entered": true, "plan.results_corrected": true };
 const SIGNED: Record<string, true> = { "plan.approved": true, "plan.changes_requested": true, "plan.rejected": true };
 const TITLES: Record<string, string> = {
   "plan.created": "Created the plan",
@@ -50,6 +51,7 @@ const TITLES: Record<string, string> = {
   "plan.released": "Released",
   "plan.started": "Marked running",
   "plan.results_entered": "Entered results",
+  "plan.results_corrected": "Corrected results",
   "plan.closed": "Closed",
   "plan.cancelled": "Cancelled",
   "reservation.created": "Reserved stock",
@@ -114,6 +116,12 @@ export function buildTimeline(
     }
     if (typeof after.reservations === "number") changes.push({ field: "reservations", label: "reservations made", before: null, after: String(after.reservations) });
     if (typeof after.reservationsReleased === "number" && after.reservationsReleased > 0) changes.push({ field: "reservationsReleased", label: "reservations released", before: null, after: String(after.reservationsReleased) });
+    if (RESULTS[e.action]) {
+      // Results entry (lib/results/server/put-results.ts) records each cell as `run N response`.
+      const cells = Object.keys(after).filter((k) => k.startsWith("run ")).length;
+      if (cells > 0) changes.push({ field: "results", label: "result cells changed", before: null, after: String(cells) });
+      if (typeof after.reservationsConsumed === "number" && after.reservationsConsumed > 0) changes.push({ field: "reservationsConsumed", label: "reservations consumed", before: null, after: String(after.reservationsConsumed) });
+    }
     items.push({ ...base, kind: "state", title: TITLES[e.action] ?? e.action, changes });
   }
   return items;

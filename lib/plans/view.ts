@@ -56,6 +56,17 @@ export type PlanView = PlanSummary &
     computedWith: PlanComputedWith;
   } & PlanReviewState;
 
+/** The settings a stored document's run sheet and cautions are computed with (they live in the document). */
+export function computedWithOf(document: PlanDocument): PlanComputedWith {
+  return {
+    vessel: document.vessel,
+    block: document.block ?? null,
+    equipment: document.equipment,
+    dispensing: document.dispensing,
+    thresholds: document.thresholds,
+  };
+}
+
 /**
  * Puts a plan's stored row and its evaluation together into the GET shape; `review` is
  * the signature and reservations (lib/plans/server/load-plan-review.ts), none when omitted.
@@ -65,13 +76,7 @@ export function planView(summary: PlanSummary, document: PlanDocument, evaluatio
     ...summary,
     document,
     ...evaluation,
-    computedWith: {
-      vessel: document.vessel,
-      block: document.block ?? null,
-      equipment: document.equipment,
-      dispensing: document.dispensing,
-      thresholds: document.thresholds,
-    },
+    computedWith: computedWithOf(document),
     signature: review?.signature ?? null,
     reservations: review?.reservations ?? [],
     submittedAt: review?.submittedAt ?? null,

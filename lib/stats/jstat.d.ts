@@ -8,8 +8,13 @@ declare module "jstat" {
     cdf(x: number, df1: number, df2: number): number;
     inv(p: number, df1: number, df2: number): number;
   }
+  interface JStatNormal {
+    inv(p: number, mean: number, sd: number): number;
+  }
   interface JStat {
     studentt: JStatStudentT;
+    /** The normal distribution (the normal probability plot's scores, lib/results/diagnostic-plots.ts). */
+    normal: JStatNormal;
     centralF: JStatCentralF;
     /** Regularised incomplete beta function I_x(a, b). */
     ibeta(x: number, a: number, b: number): number;

@@ -1,4 +1,6 @@
+import { readFileSync } from "node:fs";
 import { expect, test } from "@playwright/test";
+import pg from "pg";
 import { DEMO, signIn } from "./support/auth";
 
 /**
@@ -36,6 +38,56 @@ test("the pages run under the Content-Security-Policy without a violation", asyn
   await page.getByRole("button", { name: "Create token" }).click();
   await expect(page.getByTestId("error-token-name")).toBeVisible();
   await collect();
+  // The plan editor and the plan page (issue 10): the editor checks the plan document with its
+  // zod schema in the browser (zodResolver) and recomputes the preview as the chemist types.
+  const study = (await page.evaluate(async () => {
+    const r = await fetch("/api/labs/kestrel-bay/studies", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ name: `CSP study ${Date.now()}`, responses: [{ name: "yield", unit: "%", goal: "maximize" }] }) });
+    return ((await r.json()) as { study: { id: string } }).study.id;
+  })) as string;
+  const res = await page.goto(`/labs/kestrel-bay/studies/${study}/plans/new`);
+  expect(res?.status()).toBe(200);
+  await page.getByTestId("factors-section").getByRole("button", { name: "Add a factor" }).click();
+  await page.getByTestId("factor-0-low").fill("80");
+  await page.getByTestId("factor-0-high").fill("60");
+  await page.getByTestId("save-plan").click();
+  await expect(page.getByTestId("error-factors.0.high")).toBeVisible();
+  await collect();
+  const plan = (await page.evaluate(async (studyId) => {
+    const doc = { name: "CSP plan", recipe: { limitingReagent: "a", scaleMmol: 0.1, concentrationM: 0.2, components: [{ id: "a", name: "A", role: "reagent", formula: "C7H7BrO", form: { state: "solid" } }], solvents: [{ name: "toluene", volumeFraction: 1 }] }, factors: [{ name: "temperature", low: 40, high: 60, unit: "degC", binding: { kind: "temperature" } }], design: { design: "full-factorial", seed: 1 } };
+    const r = await fetch(`/api/labs/kestrel-bay/studies/${studyId}/plans`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ document: doc }) });
+    return ((await r.json()) as { plan: { id: string } }).plan.id;
+  }, study)) as string;
+  // Leaving the unsaved new plan: the browser asks (beforeunload); leave.
+  page.once("dialog", (d) => void d.accept());
+  for (const path of [`/studies/${study}/plans/${plan}`, `/studies/${study}/plans/${plan}/edit`]) {
+    const r = await page.goto(`/labs/kestrel-bay${path}`);
+    expect(r?.status(), path).toBe(200);
+    await expect(page.getByRole("navigation", { name: "Lab sections" })).toBeVisible();
+    await collect();
+  }
+  await expect(page.getByTestId("preview-status")).toHaveAttribute("data-status", "ready", { timeout: 20_000 });
+  await collect();
+  {
+  // The results grid and the analysis pages (issue 12): Plotly is loaded there (a dynamic
+  // import) and draws every diagnostic plot under the policy. The plan's state is set in the
+  // database (a test fixture), its yields entered through the API.
+  const study = await page.request.post("/api/labs/kestrel-bay/studies", { data: { name: `CSP analysis ${Date.now()}`, responses: [{ name: "yield", unit: "%", goal: "maximize" }] } });
+  const studyId = ((await study.json()) as { study: { id: string } }).study.id;
+  const created = await page.request.post(`/api/labs/kestrel-bay/studies/${studyId}/plans`, { data: { document: JSON.parse(readFileSync("examples/plan-suzuki.json", "utf8")) as unknown } });
+  const plan = ((await created.json()) as { plan: { id: string; runSheet: { runs: Array<{ run: number; coded: Record<string, number> }> } } }).plan;
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  await db.query("UPDATE plans SET state = 'running' WHERE id = $1", [plan.id]).finally(() => db.end());
+  const runs = plan.runSheet.runs.map((r) => ({ run: r.run, responses: { yield: 60 + 8 * r.coded.temperature! + 3 * r.coded.baseEquiv! + (r.run % 3) * 0.4 } }));
+  expect((await page.request.put(`/api/labs/kestrel-bay/plans/${plan.id}/results`, { data: { runs } })).status()).toBe(200);
+  for (const path of [`/studies/${studyId}/plans/${plan.id}/results`, `/studies/${studyId}/plans/${plan.id}/analysis`, `/studies/${studyId}/analysis`]) {
+    const res = await page.goto(`/labs/kestrel-bay${path}`);
+    expect(res?.status(), path).toBe(200);
+    if (path.endsWith("/results")) await expect(page.getByTestId("results-grid")).toBeVisible();
+    else for (const id of ["plot-normal", "plot-residual-fitted", "plot-residual-order", "plot-predicted-actual", "plot-cooks"]) await expect(page.getByTestId(id)).toHaveAttribute("data-drawn", "true");
+    await collect();
+  }
+  }
   // A client-side navigation (React hydrated and running under the policy).
   await page.getByRole("navigation", { name: "Lab sections" }).getByRole("link", { name: "Overview" }).click();
   await expect(page).toHaveURL(/\/labs\/kestrel-bay$/);

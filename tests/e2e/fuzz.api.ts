@@ -36,7 +36,10 @@ import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
 import { settingsUpdateSchema } from "../../lib/lab-settings/schemas";
 import { planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
 import { planReviewSchema } from "../../lib/plans/review-schemas";
+import { planPreviewSchema } from "../../lib/plans/preview";
+import { safeDesignRequestSchema } from "../../lib/plans/safe-design";
 import { studyCreateSchema, studyUpdateSchema } from "../../lib/studies/schemas";
+import { exclusionCreateSchema, RESULTS_BODY_LIMIT, resultsCsvSchema, resultsPutSchema } from "../../lib/results/schemas";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 
 const LAB = "kestrel-bay";
@@ -272,6 +275,8 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     { route: "labs/[lab]/studies/[studyId]/plans", method: "POST", body: "json", schema: planCreateSchema, example: () => ({ document: { name: "Fuzz plan" } }), params: { lab: LAB, studyId: randomId } },
     { route: "labs/[lab]/plans/[planId]", method: "PUT", body: "json", schema: planUpdateSchema, example: () => ({ document: { name: "Fuzz plan" }, version: 1 }), params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/plans/[planId]", method: "DELETE", body: "none", params: { lab: LAB, planId: randomId } },
+    // The editor's live preview: writes nothing, so a malformed document is only ever refused.
+    { route: "labs/[lab]/plans/preview", method: "POST", body: "json", schema: planPreviewSchema, example: () => ({ document: { name: "Fuzz preview" } }), params: { lab: LAB } },
     { route: "labs/[lab]/plans/[planId]/duplicate", method: "POST", body: "json", schema: planDuplicateSchema, example: () => ({ name: "Fuzz copy" }), params: { lab: LAB, planId: randomId } },
     // Review and release (issue 11): the moves take no body; the review is signed by a safety officer. Random plan ids: only refusals.
     { route: "labs/[lab]/plans/[planId]/submit", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
@@ -279,6 +284,12 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     { route: "labs/[lab]/plans/[planId]/release", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/plans/[planId]/cancel", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/plans/[planId]/start", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/alternatives", method: "POST", body: "json", schema: safeDesignRequestSchema, example: () => ({ document: { name: "Fuzz plan" }, kinds: ["face-centered"] }), params: { lab: LAB } },
+    // Results and analysis (issue 12): a plan id that matches no record, so only refusals are exercised.
+    { route: "labs/[lab]/plans/[planId]/results", method: "PUT", body: "json", schema: resultsPutSchema, example: () => ({ runs: [{ run: 1, responses: { yield: 72.1 } }, { run: 2, responses: null, reason: "vial cracked" }] }), params: { lab: LAB, planId: randomId }, maxBytes: RESULTS_BODY_LIMIT },
+    { route: "labs/[lab]/plans/[planId]/results/preview", method: "POST", body: "json", schema: resultsCsvSchema, example: () => ({ csv: "Run,Yield\n1,72.1\n", mapping: { run: "Run", responses: { yield: "Yield" } } }), params: { lab: LAB, planId: randomId }, maxBytes: RESULTS_BODY_LIMIT },
+    { route: "labs/[lab]/plans/[planId]/exclusions", method: "POST", body: "json", schema: exclusionCreateSchema, example: () => ({ run: 3, response: "yield", reason: "septum pierced twice" }), params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/[planId]/exclusions/[exclusionId]", method: "DELETE", body: "none", params: { lab: LAB, planId: randomId, exclusionId: randomId } },
     { route: "labs/[lab]/settings/[section]", method: "PUT", body: "json", schema: settingsUpdateSchema("dispensing"), example: () => ({ version: 1, value: { minPipetteVolumeUl: 10, overagePercent: 10, deadVolumeUl: 50, minWeighMassMg: 82, maxStockVolumeMl: 25, stockFillFraction: 0.8 } }), params: { lab: LAB, section: "dispensing" } },
   ];
 

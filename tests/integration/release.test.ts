@@ -33,6 +33,7 @@ const start = await import("@/app/api/labs/[lab]/plans/[planId]/start/route");
 const timeline = await import("@/app/api/labs/[lab]/plans/[planId]/timeline/route");
 const prepSheet = await import("@/app/api/labs/[lab]/plans/[planId]/prep-sheet.pdf/route");
 const worklist = await import("@/app/api/labs/[lab]/plans/[planId]/worklist.csv/route");
+const results = await import("@/app/api/labs/[lab]/plans/[planId]/results/route");
 
 const as = (u: { id: string; email: string }) => signInAs(u);
 const tag = randomUUID().slice(0, 8);
@@ -177,6 +178,37 @@ describe("release", () => {
     const refused = await post(cancel, plan.id);
     expect(refused.status).toBe(409);
     expect((await getPlan(plan.id)).reservations.every((r) => r.status === "held")).toBe(true);
+  });
+
+  it("results move a released plan through the same table: first results → running, the last → results entered, its reservations consumed", async () => {
+    const plan = await createPlan(linkChemicals(suzuki(), links));
+    expect((await post(release, plan.id)).status).toBe(200);
+    const runs = (plan.runSheet!.runs as Array<{ run: number }>).map((r) => r.run);
+    const put = (body: unknown) => results.PUT(req("PUT", body), ctx({ planId: plan.id }));
+    // A viewer holds no plans.execute (the permission the table gives start and enter_results): 403, nothing moves.
+    as(SEED.users.viewer);
+    expect((await put({ runs: [{ run: runs[0], responses: { yield: 40 } }] })).status).toBe(403);
+    as(SEED.users.chemist);
+    const first = await put({ runs: [{ run: runs[0], responses: { yield: 40 } }] });
+    expect(first.status, JSON.stringify(await first.clone().json())).toBe(200);
+    const running = ((await first.json()) as { plan: PlanJson; changed: { moves: string[] } });
+    expect(running.changed.moves).toEqual(["released → running"]);
+    expect(running.plan).toMatchObject({ state: "running", version: plan.version + 2 }); // release, then start
+    // Running: cancel is no longer a move (409), the stock stays held.
+    expect((await post(cancel, plan.id)).status).toBe(409);
+    const last = await put({ runs: runs.map((run, i) => ({ run, responses: { yield: 40 + i } })) });
+    expect(last.status).toBe(200);
+    const done = (await last.json()) as { plan: PlanJson; changed: { moves: string[]; consumed: number } };
+    expect(done.changed).toMatchObject({ moves: ["running → results_entered"], consumed: 4 });
+    expect(done.plan).toMatchObject({ state: "results_entered", version: plan.version + 3 });
+    expect(done.plan.reservations.map((r) => r.status)).toEqual(["consumed", "consumed", "consumed", "consumed"]);
+    // A results-entered plan is past running: cancel and start are not moves.
+    expect((await post(cancel, plan.id)).status).toBe(409);
+    expect((await post(start, plan.id)).status).toBe(409);
+    const items = ((await (await timeline.GET(req(), ctx({ planId: plan.id }))).json()) as { timeline: Array<{ title: string; changes: Array<{ label: string; after: string | null }> }> }).timeline;
+    const entered = items.filter((i) => i.title === "Entered results");
+    expect(entered.map((i) => i.changes.find((c) => c.label === "state")?.after)).toEqual(["Running", "Results entered"]);
+    expect(entered[1]!.changes).toEqual(expect.arrayContaining([{ field: "reservationsConsumed", label: "reservations consumed", before: null, after: "4" }]));
   });
 
   it("a viewer may not release or cancel (403), a stockkeeper neither", async () => {

@@ -1,5 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
+import { planJsonBytes } from "../plan-json";
 import type { PlanView } from "../view";
 import { evaluateStoredPlan } from "./evaluate-stored-plan";
 import { findPlan } from "./common";
@@ -15,4 +16,9 @@ export async function getPlan(opts: { labId: string; planId: string }, t?: Trans
   const plan = await findPlan(opts, t);
   const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: plan.document }, t);
   return fullPlanView(plan, evaluation, t);
+}
+
+/** `GET /plans/{plan}`'s response: `{ plan }` as JSON (lib/plans/plan-json.ts: the run sheet's bytes shared between requests). */
+export function planResponse(plan: PlanView): Response {
+  return new Response(planJsonBytes(plan), { headers: { "content-type": "application/json" } });
 }

@@ -78,3 +78,29 @@ export async function applyMove(
   );
   return plan;
 }
+
+/**
+ * For an operation that records the moves it makes in an audit entry of its own (results
+ * entry: one entry with the cells changed and the state before → after): moves the locked
+ * `plan` by each of `actions` in turn — every one found in the one table from the state the
+ * one before left (409 naming `state` when there is none) and checked against the actor's
+ * permission, as `lockPlanForMove` checks a single move — and saves it with one more
+ * version when it moved. Nothing is saved when a move is refused.
+ * @throws AppError conflict, forbidden.
+ */
+export async function makeMoves(opts: { labId: string; actorUserId: string; plan: Plan; actions: readonly PlanAction[] }, t: Transaction): Promise<PlanMove[]> {
+  const moves: PlanMove[] = [];
+  let state: PlanState = opts.plan.state;
+  for (const action of opts.actions) {
+    const move = requireMove(state, action);
+    await requireMovePermission({ labId: opts.labId, actorUserId: opts.actorUserId, move }, t);
+    moves.push(move);
+    state = move.to;
+  }
+  if (moves.length > 0) {
+    opts.plan.state = state;
+    opts.plan.version = opts.plan.version + 1;
+    await opts.plan.save({ transaction: t });
+  }
+  return moves;
+}

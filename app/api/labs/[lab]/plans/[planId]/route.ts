@@ -1,7 +1,7 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { readJson, route } from "@/lib/api/route";
 import { deletePlan } from "@/lib/plans/server/delete-plan";
-import { getPlan } from "@/lib/plans/server/get-plan";
+import { getPlan, planResponse } from "@/lib/plans/server/get-plan";
 import { updatePlan } from "@/lib/plans/server/update-plan";
 
 type Ctx = { params: Promise<{ lab: string; planId: string }> };
@@ -10,7 +10,7 @@ type Ctx = { params: Promise<{ lab: string; planId: string }> };
 export const GET = route(async (_req, { params }: Ctx) => {
   const p = await params;
   const { lab } = await requireLabAccess(p.lab, "plans.read");
-  return { plan: await getPlan({ labId: lab.id, planId: p.planId }) };
+  return planResponse(await getPlan({ labId: lab.id, planId: p.planId }));
 });
 
 /** `{ document, version }` → `{ plan }`; 409 naming `version` when stale. */

@@ -1,23 +1,34 @@
+import { randomInt } from "node:crypto";
 import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AppError } from "@/lib/errors/app-error";
 import { pageLabAccess } from "@/lib/auth/page-access";
+import { solventCatalogue } from "@/lib/hazards/solvents";
+import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";
+import { getStudy } from "@/lib/studies/server/get-study";
+import { listChemicals } from "@/inventory/server/chemicals";
+import { PlanEditor } from "@/components/plans/editor/plan-editor";
 
 export const metadata = { title: "New plan" };
 
-/**
- * Placeholder until the plan editor lands (issue 10 item 4, built on
- * POST /api/labs/{lab}/studies/{study}/plans). Keeps the study page's "New plan" link valid.
- */
-export default async function NewPlanPlaceholder({ params }: { params: Promise<{ lab: string; study: string }> }) {
-  const { lab: slug, study } = await params;
+/** The plan editor for a new plan of a study (POST /api/labs/{lab}/studies/{study}/plans on save). */
+export default async function NewPlanPage({ params }: { params: Promise<{ lab: string; study: string }> }) {
+  const { lab: slug, study: studyId } = await params;
   const access = await pageLabAccess(slug, "plans.edit");
-  return (
-    <div className="flex max-w-2xl flex-col gap-3">
-      <h1>New plan</h1>
-      <p className="text-sm text-ink-soft">
-        The plan editor is being built. Until it arrives, a plan document can be created through the HTTP API: <code className="font-mono text-xs">POST /api/labs/{access.lab.slug}/studies/{study}/plans</code> with{" "}
-        <code className="font-mono text-xs">{"{ \"document\": … }"}</code> (the <code className="font-mono text-xs">plan</code> verb&apos;s input).
-      </p>
-      <Link href={`/labs/${access.lab.slug}/studies/${study}`}>Back to the study</Link>
-    </div>
-  );
+  const { study } = await getStudy({ labId: access.lab.id, studyId }).catch((e: unknown) => {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  });
+  if (study.archivedAt) {
+    return (
+      <div className="flex max-w-2xl flex-col gap-3">
+        <h1>New plan</h1>
+        <p className="text-sm text-ink-soft">The study is archived; restore it before adding plans.</p>
+        <Link href={`/labs/${access.lab.slug}/studies/${study.id}`}>Back to the study</Link>
+      </div>
+    );
+  }
+  const [{ settings }, chemicals] = await Promise.all([getLabSettings({ labId: access.lab.id }), listChemicals({ labId: access.lab.id })]);
+  const knownSolvents = solventCatalogue().records.map((r) => ({ name: r.name, cas: r.cas ?? null }));
+  return <PlanEditor labSlug={access.lab.slug} study={{ id: study.id, name: study.name }} settings={settings} knownSolvents={knownSolvents} chemicals={chemicals} plan={null} seed={randomInt(0, 2 ** 31)} />;
 }

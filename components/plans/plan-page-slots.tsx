@@ -1,0 +1,30 @@
+/**
+ * THE PLAN PAGE'S ASIDE SLOT. The plan page (app/(lab)/labs/[lab]/studies/[study]/plans/
+ * [plan]/page.tsx) renders, in its aside column under the plan's own actions (Edit,
+ * Duplicate, Export JSON, Delete draft), every entry of `PLAN_PAGE_ASIDE` in order. Each
+ * gets the plan as GET /plans/{plan} shows it and who is looking; it may be a server
+ * component (async) or a client component, and renders null when it has nothing to show.
+ *
+ * Meant for the review and release stream: the state actions (submit, review, release,
+ * cancel), the signature panel, the timeline and the downloads (prep sheet, worklist).
+ */
+import type { ReactNode } from "react";
+import type { Role } from "@/lib/auth/roles";
+import type { PlanView } from "@/lib/plans/view";
+
+export interface PlanAsideProps {
+  plan: PlanView;
+  labSlug: string;
+  /** The viewer's role in the lab (ask `can(role, permission)` of lib/auth/permissions.ts). */
+  role: Role;
+  /** The viewer's user id (no one approves their own plan: compare with `plan.authorId`). */
+  userId: string;
+}
+
+export interface PlanAsideEntry {
+  id: string;
+  Component: (props: PlanAsideProps) => ReactNode | Promise<ReactNode>;
+}
+
+/** The aside's panels (see the module comment). */
+export const PLAN_PAGE_ASIDE: readonly PlanAsideEntry[] = [];

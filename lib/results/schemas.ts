@@ -1,0 +1,127 @@
+/**
+ * Results and analysis requests (CONTRACT.md "Results and analysis"), one schema each:
+ * the results entry (`PUT /plans/{plan}/results`, typed runs or a CSV file), the CSV
+ * preview, a run left out of the analysis, and the analysis query
+ * (`GET /plans/{plan}/analysis?response=&model=&alpha=&hierarchy=&transform=`, and the
+ * study's `?plans=a,b&…`). The checks that need the plan (run numbers, response names)
+ * live in lib/results/entries.ts and name the same paths.
+ */
+// First: chooses zod's interpreter before any object schema is built (lib/schemas/text.ts).
+import { text, uuid } from "../schemas/text";
+import { z } from "zod";
+import { consumeInputSchema } from "@/inventory/schemas";
+import { RESPONSE_NAME_PATTERN } from "../studies/schemas";
+
+/** The largest CSV the results routes take (a 1536-run plan with a few responses is ~100 kB). */
+export const RESULTS_CSV_MAX_CHARS = 2_000_000;
+/** Body cap of the results routes (lib/api/route.ts `maxBytes`). */
+export const RESULTS_BODY_LIMIT = 4_000_000;
+/** The most runs one request may carry. */
+export const MAX_RESULT_RUNS = 20_000;
+
+const responseKey = z.string({ message: "must be a response name" }).regex(RESPONSE_NAME_PATTERN, "is not a response name (letters, digits and _)").max(40);
+
+/** A result value: a finite number, or null for a failed run. Numbers only — a string is refused. */
+export const resultValueSchema = z.number({ message: "must be a number (or null for a failed run)" }).finite("must be a finite number").nullable();
+
+/** One run of a results entry (`responses: null` marks every response of the run failed). */
+export const resultRunSchema = z.object({
+  /** The run's number in the run sheet. */
+  run: z.number({ message: "must be a run number" }).int("must be a whole run number").min(1, "run numbers start at 1"),
+  responses: z.record(responseKey, resultValueSchema, { message: "give the responses as { name: value }" }).nullable().optional(),
+  /** Why the run failed (for the values given as null). */
+  reason: text(500).min(1, "say why the run failed").optional(),
+  /** Responses whose entered result is removed (a value typed into the wrong run). */
+  clear: z.array(responseKey).max(20).optional(),
+});
+export type ResultRunInput = z.input<typeof resultRunSchema>;
+export type ResultRun = z.output<typeof resultRunSchema>;
+
+/** How the columns of a results CSV map to runs and responses; missing entries are guessed from the headers. */
+export const resultsCsvMappingSchema = z.object({
+  /** The column holding the run number. */
+  run: text(200).optional(),
+  /** The column holding the vial position ("B3", or "2:B3" with several blocks). */
+  vial: text(200).optional(),
+  /** The column holding a failure reason (a row with a reason and no values is a failed run). */
+  reason: text(200).optional(),
+  /** Response name → column. */
+  responses: z.record(responseKey, text(200)).optional(),
+});
+export type ResultsCsvMapping = z.output<typeof resultsCsvMappingSchema>;
+
+/** A results CSV with its optional mapping (the preview, and the confirmation through the PUT). */
+export const resultsCsvSchema = z.object({
+  csv: z.string({ message: "must be the file's text" }).min(1, "the file is empty").max(RESULTS_CSV_MAX_CHARS, `at most ${RESULTS_CSV_MAX_CHARS} characters`),
+  mapping: resultsCsvMappingSchema.optional(),
+});
+
+/** The amount actually used from one held reservation when the results complete the plan (default: the planned amount). */
+export const consumptionLineSchema = consumeInputSchema.safeExtend({ reservationId: uuid("must be a reservation id") });
+
+/**
+ * `PUT /plans/{plan}/results`: `runs` typed (or pasted) in the grid, or a CSV file
+ * (`csv`, `mapping?`) confirmed after its preview — the same checks either way.
+ * `consumption` adjusts what the completed plan consumed, per reservation.
+ */
+export const resultsPutSchema = z
+  .object({
+    runs: z.array(resultRunSchema, { message: "a list of runs" }).min(1, "enter at least one run").max(MAX_RESULT_RUNS, `at most ${MAX_RESULT_RUNS} runs`).optional(),
+    csv: resultsCsvSchema.shape.csv.optional(),
+    mapping: resultsCsvMappingSchema.optional(),
+    consumption: z.array(consumptionLineSchema, { message: "a list of reservations and amounts" }).max(500).optional(),
+  })
+  .superRefine((v, ctx) => {
+    if (v.runs === undefined && v.csv === undefined) ctx.addIssue({ code: "custom", path: ["runs"], message: "give the runs' results (or a CSV file as csv)" });
+    if (v.runs !== undefined && v.csv !== undefined) ctx.addIssue({ code: "custom", path: ["csv"], message: "give either runs or a CSV file, not both" });
+    if (v.mapping !== undefined && v.csv === undefined) ctx.addIssue({ code: "custom", path: ["mapping"], message: "a mapping applies to a CSV file" });
+  });
+export type ResultsPutInput = z.input<typeof resultsPutSchema>;
+
+/** `POST /plans/{plan}/exclusions`: leave a run out of the analysis, for one response or all. */
+export const exclusionCreateSchema = z.object({
+  run: resultRunSchema.shape.run,
+  response: responseKey.optional(),
+  reason: text(500).min(3, "say why the run is left out (at least 3 characters)"),
+});
+export type ExclusionCreateInput = z.input<typeof exclusionCreateSchema>;
+
+/** `DELETE /plans/{plan}/exclusions/{exclusionId}?reason=`: bring the run back (the reason is optional). */
+export const exclusionRestoreSchema = z.object({ reason: text(500).optional() });
+
+const flag = (name: string) =>
+  z
+    .enum(["true", "false", "1", "0"], { message: `${name} is true or false` })
+    .optional()
+    .transform((v) => (v === undefined ? undefined : v === "true" || v === "1"));
+
+/** A model as the query gives it: linear, interaction, quadratic, or terms comma-separated. */
+const modelParam = z
+  .string()
+  .max(4000)
+  .optional()
+  .transform((v): "linear" | "interaction" | "quadratic" | string[] => {
+    const s = (v ?? "").trim();
+    if (s === "" ) return "quadratic";
+    if (s === "linear" || s === "interaction" || s === "quadratic") return s;
+    return s.split(",").map((t) => t.trim()).filter(Boolean);
+  });
+
+/** `GET /plans/{plan}/analysis?response=&model=&alpha=&hierarchy=&transform=`; without `alpha` nothing is pruned. */
+export const analysisQuerySchema = z.object({
+  response: responseKey.optional(),
+  model: modelParam,
+  alpha: z.coerce.number({ message: "alpha is a number" }).gt(0, "alpha is above 0").lt(1, "alpha is below 1").optional(),
+  hierarchy: flag("hierarchy").transform((v) => v ?? true),
+  transform: z.enum(["none", "ln"], { message: "transform is none or ln" }).default("none"),
+});
+export type AnalysisQuery = z.output<typeof analysisQuerySchema>;
+
+/** `GET /studies/{study}/analysis?plans=a,b&…`: the plan query plus the plans to analyse together. */
+export const studyAnalysisQuerySchema = analysisQuerySchema.extend({
+  plans: z
+    .string({ message: "name the plans, comma-separated" })
+    .transform((v) => [...new Set(v.split(",").map((s) => s.trim()).filter(Boolean))])
+    .pipe(z.array(uuid("must be a plan id")).min(1, "name at least one plan").max(20, "at most 20 plans")),
+});
+export type StudyAnalysisQuery = z.output<typeof studyAnalysisQuerySchema>;
