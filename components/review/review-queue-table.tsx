@@ -4,7 +4,7 @@
  * cautions' codes and why sign-off is needed. Severity is said in words as well as colour.
  */
 import Link from "next/link";
-import type { Severity } from "@/lib/hazards/caution-rules";
+import { SIGN_OFF_RULES, type Severity } from "@/lib/hazards/caution-rules";
 import { waitedFor } from "@/lib/plans/review-queue";
 import type { ReviewQueueItem } from "@/lib/plans/server/list-review-queue";
 import { When } from "@/components/studies/bits";
@@ -55,12 +55,35 @@ export function ReviewQueueTable({ labSlug, items, now }: { labSlug: string; ite
               <td className="px-3 py-2 whitespace-nowrap">{item.plan.authorName}</td>
               <td className="num px-3 py-2 text-right">{item.plan.runCount ?? "—"}</td>
               <td className="px-3 py-2">
-                <span className="font-mono text-xs">{item.codes.join(" ") || "—"}</span>
+                <span className="flex flex-wrap gap-x-2 font-mono text-xs">
+                  {item.codes.length
+                    ? item.codes.map((c) => (
+                        <span key={c} className="whitespace-nowrap">
+                          {c}
+                        </span>
+                      ))
+                    : "—"}
+                </span>
                 <p className="num text-xs text-ink-faint">
-                  {item.counts.blocking} blocking · {item.counts.warning} warning · {item.counts.info} info
+                  <span className="whitespace-nowrap">{item.counts.blocking} blocking</span> · <span className="whitespace-nowrap">{item.counts.warning} warning</span> · <span className="whitespace-nowrap">{item.counts.info} info</span>
                 </p>
               </td>
-              <td className="px-3 py-2 text-xs text-ink-soft">{item.signOffReasons.length ? item.signOffReasons.map((r) => r.replace(/:.*$/, "")).join(", ") : "asked by the author"}</td>
+              <td className="px-3 py-2 text-xs text-ink-soft">
+                {item.signOffReasons.length ? (
+                  <ul className="flex flex-col gap-0.5">
+                    {item.signOffReasons.map((r) => {
+                      const code = r.replace(/:.*$/, "");
+                      return (
+                        <li key={r}>
+                          <span className="font-mono">{code}</span> {(SIGN_OFF_RULES as Record<string, string | undefined>)[code] ?? r.slice(code.length + 1).trim()}
+                        </li>
+                      );
+                    })}
+                  </ul>
+                ) : (
+                  "asked by the author"
+                )}
+              </td>
               <td className="num px-3 py-2 text-right whitespace-nowrap">
                 {waitedFor(item.submittedAt, now)}
                 {item.submittedAt && (

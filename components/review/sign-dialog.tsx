@@ -25,7 +25,12 @@ const HINT: Record<ReviewDecision, string> = {
   reject: "The plan cannot go ahead; say why.",
 };
 
-export function SignDialog({ labSlug, plan, blocked }: { labSlug: string; plan: Pick<PlanView, "id" | "contentHash" | "name" | "version">; blocked: boolean }) {
+/**
+ * `signable` is false once the plan no longer waits for review (or the viewer wrote it):
+ * the dialog then shows only what the last signing said, which is why the page renders it
+ * in the same place either way (its message survives the page's refresh after signing).
+ */
+export function SignDialog({ labSlug, plan, blocked, signable }: { labSlug: string; plan: Pick<PlanView, "id" | "contentHash" | "name" | "version">; blocked: boolean; signable: boolean }) {
   const router = useRouter();
   const [open, setOpen] = useState(false);
   const [message, setMessage] = useState<{ tone: "ok" | "blocks"; text: string } | null>(null);
@@ -49,6 +54,13 @@ export function SignDialog({ labSlug, plan, blocked }: { labSlug: string; plan: 
     router.refresh();
   });
 
+  if (!signable) {
+    return message ? (
+      <Banner tone={message.tone} testId="sign-result">
+        {message.text}
+      </Banner>
+    ) : null;
+  }
   if (!open) {
     return (
       <div className="flex flex-col gap-2">

@@ -11,8 +11,9 @@ import { DEMO, signIn } from "./support/auth";
  * stock reserved — and downloads the prep sheet and the worklist. The PDF is read with
  * Debian's poppler tools (pdftotext for its text, pdftoppm for a picture of page 1),
  * outside the app: it must be a PDF holding the plan's name and a dispense row.
- * Screenshots of the queue, the review page and the PDF's first page are kept as
- * artifacts (test-results/).
+ * Screenshots of the queue, the review page (before and after signing), the released plan
+ * page and the PDF's first page (pdftoppm, 100 dpi) are kept as artifacts in this test's
+ * Playwright output folder (test-results/<test>/), with the PDF and the CSV.
  *
  * The plan is the demo's Suzuki–Miyaura screen (examples/plan-suzuki.json) run up to
  * 110 °C — sealed above 1,4-dioxane's boiling point, so sign-off is required — with its
@@ -99,6 +100,8 @@ test("a chemist submits, the safety officer signs in the queue, the chemist rele
   await safety.getByLabel("Your password").fill("tareline-demo");
   await safety.getByTestId("sign-submit").click();
   await expect(safety.getByTestId("sign-result")).toContainText("approved for execution as planned");
+  await expect(safety.getByTestId("review-not-waiting")).toContainText("approved");
+  await expect(safety.getByTestId("open-sign-dialog")).toHaveCount(0);
   await safety.screenshot({ path: testInfo.outputPath("review-signed.png"), fullPage: true });
 
   // Back to the chemist: the signature is valid, release reserves the stock.
@@ -110,6 +113,10 @@ test("a chemist submits, the safety officer signs in the queue, the chemist rele
   await expect(chemist.getByTestId("plan-state")).toContainText("Released");
   await expect(chemist.getByTestId("timeline")).toContainText("Signed: approved for execution as planned");
   await expect(chemist.getByTestId("timeline")).toContainText("Reserved stock");
+  // The stock now held for it: the base and the dioxane, each from one container.
+  await expect(chemist.getByTestId("plan-reservation")).toHaveCount(2);
+  await expect(chemist.getByTestId("plan-reservations")).toContainText("Potassium phosphate tribasic");
+  await expect(chemist.getByTestId("plan-reservations")).toContainText("1,4-Dioxane");
   await chemist.screenshot({ path: testInfo.outputPath("plan-released.png"), fullPage: true });
 
   // The prep sheet: a PDF whose text holds the plan's name and the first vial's first dispense row.

@@ -32,7 +32,8 @@ export async function planReservationLines(opts: { labId: string; planId: string
       containerId: c.id,
       chemicalId: c.chemicalId,
       status: r.status,
-      amount: amountView(r.amountBase, c.dimension, c.displayUnit),
+      // In the amount's natural unit (16.015 mL rather than 0.016 L of a litre bottle): what a plan takes is small beside its container.
+      amount: amountView(r.amountBase, c.dimension),
       barcode: c.barcode,
       chemicalName: c.chemical?.name ?? "",
     };
