@@ -3,7 +3,9 @@
  * session is replaced): CONTRACT.md `POST /plans/{plan}/release` and `/cancel`, issue 11
  * "Release". The plan is the demo's Suzuki–Miyaura screen (examples/plan-suzuki.json) with
  * its components and solvent linked to chemicals this test stocks through the inventory's
- * own operations, so the seeded stock is never touched.
+ * own operations, so the seeded stock is never touched (named "Release test …", so a
+ * catalogue search for a demo chemical in the browser tests, which run later on the same
+ * database, finds only the demo's).
  *
  * Checked against things outside the release code: the run sheet the plan GET returns
  * (the `plan` verb's output) for the amounts, computed here exactly from its decimal text;
@@ -67,16 +69,16 @@ beforeAll(async () => {
   const res = await studies.POST(req("POST", { name: `Release ${tag}`, responses: [{ name: "yield", unit: "%", goal: "maximize" }] }), ctx({}));
   studyId = ((await res.json()) as { study: { id: string } }).study.id;
   // Aryl bromide: one bottle by volume. Boronic acid: three jars, to see which the release rule takes.
-  stock.arBr = await stockedChemical({ name: `1-Bromo-4-isopropylbenzene ${tag}`, molarMass: "199.09", density: "1.290", physicalState: "liquid" }, [
+  stock.arBr = await stockedChemical({ name: `Release test ${tag}: 1-bromo-4-isopropylbenzene`, molarMass: "199.09", density: "1.290", physicalState: "liquid" }, [
     { barcode: `RL-${tag}-A1`, amount: "50", unit: "mL", expiresOn: daysFromToday(400), openedOn: daysFromToday(-30), purityPercent: "98" },
   ]);
-  stock.boronicAcid = await stockedChemical({ name: `2-Methoxypyridin-3-ylboronic acid ${tag}`, molarMass: "152.94", physicalState: "solid" }, [
+  stock.boronicAcid = await stockedChemical({ name: `Release test ${tag}: 2-methoxypyridin-3-ylboronic acid`, molarMass: "152.94", physicalState: "solid" }, [
     { barcode: `RL-${tag}-B1`, amount: "10", unit: "g", expiresOn: daysFromToday(100), purityPercent: "97" }, // sealed, first to expire
     { barcode: `RL-${tag}-B2`, amount: "10", unit: "g", expiresOn: daysFromToday(300), openedOn: daysFromToday(-10), purityPercent: "97" }, // opened, expires later
     { barcode: `RL-${tag}-B3`, amount: "10", unit: "g", expiresOn: daysFromToday(100), openedOn: daysFromToday(-20), purityPercent: "97" }, // opened, first to expire: the one to take
   ]);
-  stock.base = await stockedChemical({ name: `Potassium phosphate tribasic ${tag}`, molarMass: "212.27", physicalState: "solid" }, [{ barcode: `RL-${tag}-K1`, amount: "100", unit: "g", expiresOn: daysFromToday(500), purityPercent: "98" }]);
-  stock.dioxane = await stockedChemical({ name: `1,4-Dioxane ${tag}`, molarMass: "88.11", density: "1.033", physicalState: "liquid" }, [{ barcode: `RL-${tag}-D1`, amount: "1", unit: "L", expiresOn: daysFromToday(300), openedOn: daysFromToday(-5), purityPercent: "99.8" }]);
+  stock.base = await stockedChemical({ name: `Release test ${tag}: potassium phosphate tribasic`, molarMass: "212.27", physicalState: "solid" }, [{ barcode: `RL-${tag}-K1`, amount: "100", unit: "g", expiresOn: daysFromToday(500), purityPercent: "98" }]);
+  stock.dioxane = await stockedChemical({ name: `Release test ${tag}: 1,4-dioxane`, molarMass: "88.11", density: "1.033", physicalState: "liquid" }, [{ barcode: `RL-${tag}-D1`, amount: "1", unit: "L", expiresOn: daysFromToday(300), openedOn: daysFromToday(-5), purityPercent: "99.8" }]);
   links = {
     components: { arBr: stock.arBr.chemicalId, boronicAcid: stock.boronicAcid.chemicalId, base: stock.base.chemicalId },
     solvents: { "1,4-dioxane": stock.dioxane.chemicalId },
@@ -139,7 +141,7 @@ describe("release", () => {
   });
 
   it("a shortfall is a 409 naming the chemical with needed and available amounts; nothing is reserved, and the stockkeepers are told", async () => {
-    const scarce = await stockedChemical({ name: `Potassium phosphate, scarce ${tag}`, molarMass: "212.27", physicalState: "solid" }, [{ barcode: `RL-${tag}-S1`, amount: "1", unit: "g", expiresOn: daysFromToday(200), purityPercent: "98" }]);
+    const scarce = await stockedChemical({ name: `Release test ${tag}: potassium phosphate, scarce`, molarMass: "212.27", physicalState: "solid" }, [{ barcode: `RL-${tag}-S1`, amount: "1", unit: "g", expiresOn: daysFromToday(200), purityPercent: "98" }]);
     const plan = await createPlan(linkChemicals(suzuki(), { ...links, components: { ...links.components, base: scarce.chemicalId } }));
     const heldBefore = await heldByContainer(Object.values(stock).flatMap((s) => s.containerIds));
     const res = await post(release, plan.id);
@@ -147,7 +149,7 @@ describe("release", () => {
     const body = (await res.json()) as ErrorJson;
     const needed = plan.runSheet!.inventory.find((l) => l.id === "base")!.massMg!;
     expect(body.shortfalls).toHaveLength(1);
-    expect(body.shortfalls![0]).toMatchObject({ chemicalId: scarce.chemicalId, name: `Potassium phosphate, scarce ${tag}`, unit: "mg" });
+    expect(body.shortfalls![0]).toMatchObject({ chemicalId: scarce.chemicalId, name: `Release test ${tag}: potassium phosphate, scarce`, unit: "mg" });
     expect(body.shortfalls![0]!.needed).toBeCloseTo(needed, 9);
     expect(body.shortfalls![0]!.available).toBeCloseTo(1000, 6); // the one 1 g jar
     expect(body.error.issues.map((i) => i.path)).toEqual(["shortfalls"]);
@@ -156,7 +158,7 @@ describe("release", () => {
     expect(await heldByContainer(Object.values(stock).flatMap((s) => s.containerIds))).toEqual(heldBefore);
     expect(await Plan.findByPk(plan.id)).toMatchObject({ state: "draft", version: plan.version });
     // The stockkeeper's notice was queued outside the rolled-back release and arrives.
-    await expect.poll(() => smtp.received.some((m) => m.to.includes(SEED.users.stockkeeper.email) && unfoldQuotedPrintable(m.raw).includes(`Potassium phosphate, scarce ${tag}`)), { timeout: 90_000, interval: 250 }).toBe(true);
+    await expect.poll(() => smtp.received.some((m) => m.to.includes(SEED.users.stockkeeper.email) && unfoldQuotedPrintable(m.raw).includes(`Release test ${tag}: potassium phosphate, scarce`)), { timeout: 90_000, interval: 250 }).toBe(true);
   }, 120_000);
 
   it("sign-off required: a draft cannot be released without review (409 naming signOffRequired)", async () => {
@@ -279,7 +281,7 @@ describe("the prep sheet and the worklist", () => {
 describe("twenty concurrent releases", () => {
   it("never hold more than the containers have: exactly as many plans as the stock covers are released", async () => {
     // Three 4 g jars of one base: 12 g in all. Each plan needs the run sheet's total of the base.
-    const contested = await stockedChemical({ name: `Potassium phosphate, contested ${tag}`, molarMass: "212.27", physicalState: "solid" }, [
+    const contested = await stockedChemical({ name: `Release test ${tag}: potassium phosphate, contested`, molarMass: "212.27", physicalState: "solid" }, [
       { barcode: `RL-${tag}-C1`, amount: "4", unit: "g", expiresOn: daysFromToday(90), purityPercent: "98" },
       { barcode: `RL-${tag}-C2`, amount: "4", unit: "g", expiresOn: daysFromToday(120), purityPercent: "98" },
       { barcode: `RL-${tag}-C3`, amount: "4", unit: "g", expiresOn: daysFromToday(150), purityPercent: "98" },
