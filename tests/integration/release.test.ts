@@ -22,7 +22,7 @@ import { SEED, db } from "../support/integration";
 import { signInAs } from "../support/fake-session";
 import { SmtpCapture, attachmentContent, testSmtpPort, unfoldQuotedPrintable } from "../support/smtp-capture";
 import { escapeRegExp, flat, pdfText } from "../unit/reports/pdf-tools";
-import { ceilThousandths, ctx, daysFromToday, linkChemicals, req, stockedChemical, suzuki, suzukiHot, type ErrorJson, type Json, type PlanJson } from "../support/plan-api";
+import { ceilThousandths, ctx, databaseNow, daysFromToday, linkChemicals, mailJobsPending, req, stockedChemical, suzuki, suzukiHot, type ErrorJson, type Json, type PlanJson } from "../support/plan-api";
 
 vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
@@ -40,6 +40,7 @@ const results = await import("@/app/api/labs/[lab]/plans/[planId]/results/route"
 const as = (u: { id: string; email: string }) => signInAs(u);
 const tag = randomUUID().slice(0, 8);
 const smtp = new SmtpCapture(testSmtpPort());
+let startedAt = "";
 let studyId = "";
 let links: { components: Record<string, string>; solvents: Record<string, string> };
 const stock: Record<string, { chemicalId: string; containerIds: string[] }> = {};
@@ -64,6 +65,7 @@ async function heldByContainer(ids: string[]): Promise<Map<string, bigint>> {
 }
 
 beforeAll(async () => {
+  startedAt = await databaseNow();
   await smtp.start();
   as(SEED.users.chemist);
   const res = await studies.POST(req("POST", { name: `Release ${tag}`, responses: [{ name: "yield", unit: "%", goal: "maximize" }] }), ctx({}));
@@ -84,7 +86,11 @@ beforeAll(async () => {
     solvents: { "1,4-dioxane": stock.dioxane.chemicalId },
   };
 });
-afterAll(() => smtp.stop());
+afterAll(async () => {
+  // Every mail this file queued is delivered (to this file's capture) before it stops listening.
+  await vi.waitFor(async () => expect(await mailJobsPending(startedAt)).toBe(0), { timeout: 120_000, interval: 500 });
+  await smtp.stop();
+}, 150_000);
 
 describe("release", () => {
   it("a plan no rule flags goes from draft to released, reserving exactly the run sheet's totals (overage and dead volume included)", async () => {

@@ -21,7 +21,7 @@ import { AuditEntry, Membership, Plan, PlanSignature, Reservation, User } from "
 import { SEED, db } from "../support/integration";
 import { signInAs } from "../support/fake-session";
 import { SmtpCapture, testSmtpPort, unfoldQuotedPrintable } from "../support/smtp-capture";
-import { ctx, req, suzukiHot, suzukiUnderRated, type ErrorJson, type Json, type PlanJson } from "../support/plan-api";
+import { ctx, databaseNow, mailJobsPending, req, suzukiHot, suzukiUnderRated, type ErrorJson, type Json, type PlanJson } from "../support/plan-api";
 
 vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
@@ -39,6 +39,7 @@ const as = (u: { id: string; email: string }) => signInAs(u);
 const { chemist, safety } = SEED.users;
 const tag = randomUUID().slice(0, 8);
 const smtp = new SmtpCapture(testSmtpPort());
+let startedAt = "";
 let studyId = "";
 
 type PlanRoute = { POST: (r: Request, c: { params: Promise<{ lab: string; planId: string }> }) => Promise<Response> };
@@ -73,12 +74,17 @@ async function snapshot(planId: string) {
 }
 
 beforeAll(async () => {
+  startedAt = await databaseNow();
   await smtp.start();
   as(chemist);
   const res = await studies.POST(req("POST", { name: `Review ${tag}`, responses: [{ name: "yield", unit: "%", goal: "maximize" }] }), ctx({}));
   studyId = ((await res.json()) as { study: { id: string } }).study.id;
 });
-afterAll(() => smtp.stop());
+afterAll(async () => {
+  // Every mail this file queued is delivered (to this file's capture) before it stops listening.
+  await vi.waitFor(async () => expect(await mailJobsPending(startedAt)).toBe(0), { timeout: 120_000, interval: 500 });
+  await smtp.stop();
+}, 150_000);
 
 /**
  * The moves CONTRACT.md "States" and issue 11 item 1 allow, written out independently of

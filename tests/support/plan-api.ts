@@ -7,7 +7,8 @@
 import { readFileSync } from "node:fs";
 import { createChemical } from "@/inventory/server/chemicals";
 import { createContainer } from "@/inventory/server/containers";
-import { SEED } from "./integration";
+import { QueryTypes } from "sequelize";
+import { SEED, db } from "./integration";
 
 export type Json = Record<string, unknown>;
 export const lab = SEED.labs.kestrel.slug;
@@ -94,4 +95,23 @@ export function ceilThousandths(x: number): bigint {
   const [int = "0", frac = ""] = s.split(".");
   const kept = BigInt(int + frac.slice(0, 3).padEnd(3, "0"));
   return /[1-9]/.test(frac.slice(3)) ? kept + 1n : kept;
+}
+
+/** The database's clock now (job rows are stamped by it). */
+export async function databaseNow(): Promise<string> {
+  const [row] = await db().query<{ now: string }>("SELECT now()::text AS now", { type: QueryTypes.SELECT });
+  return row!.now;
+}
+
+/**
+ * How many mail jobs queued since `since` are not done yet (pg-boss's job table). A file
+ * that sends mail waits for none before stopping its SMTP capture, so no job of its own is
+ * left retrying (and rendering its prep sheet) while later files run.
+ */
+export async function mailJobsPending(since: string): Promise<number> {
+  const [row] = await db().query<{ n: string }>(
+    "SELECT count(*)::text AS n FROM pgboss.job WHERE name = 'mail' AND created_on >= $since AND state NOT IN ('completed', 'failed', 'cancelled')",
+    { bind: { since }, type: QueryTypes.SELECT },
+  );
+  return Number(row!.n);
 }

@@ -1,6 +1,6 @@
 import "server-only";
 import { z } from "zod";
-import { deliverMail } from "@/lib/server/mail";
+import { checkMailServer, deliverMail } from "@/lib/server/mail";
 import { defineJob } from "../define-job";
 import { mailMessageSchema, renderedContentSchema, type MailMessage } from "./message";
 import type { MailRenderer } from "./renderer";
@@ -20,6 +20,8 @@ export const outgoingMailSchema = z.union([mailMessageSchema, renderedMailSchema
 /** The message a queued mail stands for: rendered now when it names a renderer. */
 async function messageOf(mail: z.output<typeof outgoingMailSchema>): Promise<MailMessage> {
   if (!("render" in mail)) return mail;
+  // Rendering can be costly (PDF attachments): not while the SMTP server is down (the attempt fails as delivery would).
+  await checkMailServer();
   // Each renderer parses its own input: seen through the common interface, any of them fits.
   const renderer: MailRenderer = MAIL_RENDERERS[mail.render];
   const content = renderedContentSchema.parse(await renderer.render(renderer.input.parse(mail.input)));
