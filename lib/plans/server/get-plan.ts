@@ -1,10 +1,10 @@
 import "server-only";
 import type { Transaction } from "sequelize";
 import { planJsonBytes } from "../plan-json";
-import type { PlanView } from "../view";
+import { planView, type PlanView } from "../view";
 import { evaluateStoredPlan } from "./evaluate-stored-plan";
-import { findPlan } from "./common";
-import { fullPlanView } from "./load-plan-review";
+import { findPlan, planSummary } from "./common";
+import { loadPlanReview } from "./load-plan-review";
 
 /**
  * One plan of the lab as `GET /plans/{plan}` shows it: the stored document, the run sheet
@@ -14,8 +14,9 @@ import { fullPlanView } from "./load-plan-review";
  */
 export async function getPlan(opts: { labId: string; planId: string }, t?: Transaction): Promise<PlanView> {
   const plan = await findPlan(opts, t);
-  const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: plan.document }, t);
-  return fullPlanView(plan, evaluation, t);
+  // The evaluation and the review state read different tables: read them at once.
+  const [evaluation, review] = await Promise.all([evaluateStoredPlan({ labId: opts.labId, document: plan.document }, t), loadPlanReview(plan, t)]);
+  return planView(planSummary(plan), plan.document, evaluation, review);
 }
 
 /** `GET /plans/{plan}`'s response: `{ plan }` as JSON (lib/plans/plan-json.ts: the run sheet's bytes shared between requests). */

@@ -42,8 +42,8 @@ export async function planReservationLines(opts: { labId: string; planId: string
 
 /** What review and release add to the plan's GET shape: its latest signature (valid or not), reservations and submission time. */
 export async function loadPlanReview(plan: Plan, t?: Transaction): Promise<PlanReviewState> {
-  const signature = await latestSignature({ labId: plan.labId, planId: plan.id }, t);
-  const reservations = await planReservationLines({ labId: plan.labId, planId: plan.id }, t);
+  const ref = { labId: plan.labId, planId: plan.id };
+  const [signature, reservations] = await Promise.all([latestSignature(ref, t), planReservationLines(ref, t)]);
   return {
     signature: signatureView(signature, { contentHash: plan.contentHash, signatureId: plan.signatureId ?? null }),
     reservations,
