@@ -24,6 +24,10 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare derivation: PlanDerivation | null;
   /** What a derived plan was derived with (a confirmation's analysis and point, an augmentation's α); null otherwise. */
   declare derivationDetails: CreationOptional<Record<string, unknown> | null>;
+  /** The signature that applies to the content now (plan_signatures); any edit of the content clears it. */
+  declare signatureId: CreationOptional<string | null>;
+  /** When the plan was last submitted for review. */
+  declare submittedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare author?: NonAttribute<User>;
@@ -45,6 +49,8 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
         derivedFromPlanId: { type: DataTypes.UUID, allowNull: true },
         derivation: { type: DataTypes.STRING(20), allowNull: true },
         derivationDetails: { type: DataTypes.JSONB, allowNull: true },
+        signatureId: { type: DataTypes.UUID, allowNull: true },
+        submittedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -35,7 +35,8 @@ export async function planHazardFacts(
       throw new AppError("not_found", `No such chemical in this lab: ${missing.join(", ")}.`, missing.map((id) => ({ path: "chemicalId", message: `${id}: no such chemical in this lab` })));
     }
     const today = opts.today ?? todayIso();
-    const intervals = await peroxideIntervalsFor(opts.labId, tx);
+    // The peroxide test intervals matter only to a proposal for a requirement (release, availability).
+    const intervals = opts.requirements?.length ? await peroxideIntervalsFor(opts.labId, tx) : undefined;
     const out: Record<string, InventoryChemicalFacts> = {};
     for (const chem of chems) {
       const facts = chemicals.find((c) => c.id === chem.id)!;
@@ -43,7 +44,7 @@ export async function planHazardFacts(
       const requirement = opts.requirements?.find((r) => r.chemicalId === chem.id);
       let chosen: ContainerFacts | undefined;
       if (requirement) {
-        const proposal = proposeContainers({ requirements: [requirement], chemicals: [facts], containers: own, today, peroxideIntervals: intervals });
+        const proposal = proposeContainers({ requirements: [requirement], chemicals: [facts], containers: own, today, peroxideIntervals: intervals! });
         const pick = proposal.lines[0]?.picks[0];
         chosen = pick ? own.find((c) => c.id === pick.containerId) : undefined;
       } else {
