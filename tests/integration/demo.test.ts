@@ -18,6 +18,10 @@ import { checkAvailability } from "@/inventory/server/availability";
 import { loadDemoSteps, runDemo } from "@/lib/demo/run";
 import { demoStep } from "@/lib/demo/step";
 import { getPlan } from "@/lib/plans/server/get-plan";
+import { pointSafety } from "@/lib/chemistry/point-safety";
+import { withInventoryFacts } from "@/lib/plans/server/evaluate-stored-plan";
+import { analyzePlan } from "@/lib/results/server/analyze-plan";
+import { getResults } from "@/lib/results/server/get-results";
 import { listReviewQueue } from "@/lib/plans/server/list-review-queue";
 import { suggestSafeDesign } from "@/lib/plans/server/suggest-safe-design";
 import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";
@@ -184,14 +188,15 @@ describe("the demo's review and release (step 50)", () => {
   it("Study A's screen is released, holding stock for every component and solvent that names a chemical, tied to the plan", async () => {
     const r = await records();
     const screen = await getPlan({ labId: LAB, planId: r["studyA.screen"]! });
-    expect(screen.state).toBe("released");
+    // Released by step 50; step 60 entered its results, which consumed what it held.
+    expect(screen.state).toBe("results_entered");
     expect(screen.signature).toBeNull(); // no rule asks for sign-off: released without review
     const named = new Set([...screen.document.recipe.components.map((c) => c.chemicalId), ...screen.document.recipe.solvents.map((x) => x.chemicalId)]);
-    const held = screen.reservations.filter((x) => x.status === "held");
-    expect(held.length).toBeGreaterThanOrEqual(named.size);
-    expect(new Set(held.map((x) => x.chemicalId))).toEqual(named);
+    const reserved = screen.reservations.filter((x) => x.status !== "released");
+    expect(reserved.length).toBeGreaterThanOrEqual(named.size);
+    expect(new Set(reserved.map((x) => x.chemicalId))).toEqual(named);
     // Each row carries the plan's foreign key (reservations.plan_id), read without the project's view code.
-    expect(await Reservation.count({ where: { labId: LAB, planId: screen.id, status: "held" } })).toBe(held.length);
+    expect(await Reservation.count({ where: { labId: LAB, planId: screen.id, status: ["held", "consumed"] } })).toBe(reserved.length);
     const released = await AuditEntry.findOne({ where: { entityId: screen.id, action: "plan.released" } });
     expect(released?.actorUserId).toBe((await User.findOne({ where: { email: "chemist@kestrelbay.example" } }))!.id);
   });
@@ -200,15 +205,18 @@ describe("the demo's review and release (step 50)", () => {
     const r = await records();
     const bb = await getPlan({ labId: LAB, planId: r["studyA.boxBehnken"]! });
     const officer = (await User.findOne({ where: { email: "safety@kestrelbay.example" } }))!;
-    expect(bb.state).toBe("approved");
+    // Approved by step 50; step 70 released it and entered its results.
+    expect(bb.state).toBe("results_entered");
+    expect(await AuditEntry.count({ where: { entityId: bb.id, action: "plan.released" } })).toBe(1);
     expect(bb.signOffRequired).toBe(true);
     expect(bb.signature).toMatchObject({ signerName: officer.name, meaning: "approved for execution as planned", valid: true, decision: "approve" });
     const stored = await Plan.findByPk(bb.id);
     expect(bb.signature!.contentHash).toBe(sha256(stored!.document));
     const row = await PlanSignature.findOne({ where: { planId: bb.id } });
     expect(row).toMatchObject({ signerId: officer.id, decision: "approve", contentHash: sha256(stored!.document) });
-    // Not released yet: nothing held.
-    expect(bb.reservations).toEqual([]);
+    // Released after the approval (step 70): the stock it held is consumed by its results.
+    expect(bb.reservations.length).toBeGreaterThan(0);
+    expect(bb.reservations.every((x) => x.status !== "held")).toBe(true);
   });
 
   it("Study B's pyrophoric exchange plan waits in the review queue", async () => {
@@ -222,5 +230,55 @@ describe("the demo's review and release (step 50)", () => {
     expect(item!.signOffReasons.some((s) => s.startsWith("TL-S02"))).toBe(true);
     // The approved Box–Behnken plan and the released screen are no longer in it.
     expect(queue.some((q) => q.plan.id === r["studyA.boxBehnken"] || q.plan.id === r["studyA.screen"])).toBe(false);
+  });
+});
+
+describe("the demo's results, surface and confirmation (steps 60 and 70)", () => {
+  it("Study A's screen has every result, and its analysis shows temperature, base, Pd and temperature × Pd matter, boronic acid and water not", async () => {
+    const r = await records();
+    const results = await getResults({ labId: LAB, planId: r["studyA.screen"]! });
+    expect(results.complete).toBe(true);
+    expect(results.cells.filter((c) => !c.failed)).toHaveLength(18 * 2); // yield and homocoupling of 18 runs
+    const a = await analyzePlan({ labId: LAB, planId: r["studyA.screen"]!, query: { response: "yield", model: "interaction", alpha: "0.05", hierarchy: "true" } });
+    expect(a.terms.map((t) => t.term).sort()).toEqual(["baseEquiv", "intercept", "pdLoading", "temperature", "temperature*pdLoading"]);
+    expect(a.dropped).toEqual(expect.arrayContaining(["boronicEquiv", "waterFraction"]));
+    // The invented yields' stated effects (lib/demo/study-a-results.ts: 9 per coded unit of temperature, 4 of base, 5 of Pd, 2.5 for T × Pd), within the scatter.
+    const est = Object.fromEntries(a.terms.map((t) => [t.term, t.estimate]));
+    expect(est.temperature).toBeCloseTo(9, 0);
+    expect(est.baseEquiv).toBeCloseTo(4, 0);
+    expect(est.pdLoading).toBeCloseTo(5, 0);
+    expect(Math.abs(est["temperature*pdLoading"]! - 2.5)).toBeLessThan(0.5);
+    // The next design from the screen: a path of steepest ascent led by temperature.
+    expect(a.nextDesign?.steepestAscent.path?.baseFactor).toBe("temperature");
+  });
+
+  it("Study A's Box–Behnken results show a curved surface with a maximum inside the studied region", async () => {
+    const r = await records();
+    const a = await analyzePlan({ labId: LAB, planId: r["studyA.boxBehnken"]!, query: { response: "yield", model: "quadratic" } });
+    expect(a.stats.n).toBe(15);
+    expect(a.canonical).toMatchObject({ kind: "maximum", stationaryInside: true });
+    // The stated model's stationary point, solved by hand from its gradient (3 − 8T + Pd = 0, 1.5 − 5B = 0, 2 − 6Pd + T = 0):
+    // T = 0.426, B = 0.300, Pd = 0.404 coded → 101.4 °C, 2.48 equiv, 1.55 mol %; the scatter moves the fitted one a little.
+    expect(Math.abs(a.optimum!.natural.temperature! - 101.4)).toBeLessThan(1);
+    expect(Math.abs(a.optimum!.natural.baseEquiv! - 2.48)).toBeLessThan(0.12);
+    expect(Math.abs(a.optimum!.natural.pdLoading! - 1.55)).toBeLessThan(0.06);
+    expect(a.optimum!.onBoundary).toEqual([]);
+  });
+
+  it("a confirmation plan exists for it: a draft of three replicates at the optimum rounded to 1 °C, 0.05 equiv and 0.1 mol %, inside the envelope", async () => {
+    const r = await records();
+    const plan = await getPlan({ labId: LAB, planId: r["studyA.confirmation"]! });
+    expect(plan).toMatchObject({ state: "draft", studyId: r.studyA, derivedFromPlanId: r["studyA.boxBehnken"], derivation: "confirmation", runCount: 3 });
+    const a = await analyzePlan({ labId: LAB, planId: r["studyA.boxBehnken"]!, query: { response: "yield", model: "quadratic" } });
+    const o = a.optimum!.natural;
+    const round = (v: number, step: number) => Number((Math.round(v / step) * step).toFixed(6));
+    const point = { temperature: round(o.temperature!, 1), baseEquiv: round(o.baseEquiv!, 0.05), pdLoading: round(o.pdLoading!, 0.1) };
+    for (const run of plan.runSheet!.runs) for (const [f, v] of Object.entries(point)) expect(run.natural[f], f).toBeCloseTo(v, 9);
+    const linked = await withInventoryFacts({ labId: LAB, document: plan.document });
+    const verdict = pointSafety(linked.document)(point);
+    expect([...verdict.blocking, ...verdict.limits]).toEqual([]);
+    expect(plan.cautions.filter((c) => c.severity === "blocking")).toEqual([]);
+    // The Box–Behnken analysis lists it, waiting for results.
+    expect(a.nextDesign?.confirmations.map((c) => [c.plan.id, c.verdict])).toEqual([[plan.id, null]]);
   });
 });
