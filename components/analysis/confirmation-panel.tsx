@@ -8,7 +8,6 @@ import type { AnalysisParams } from "@/lib/hooks/use-analysis";
 import { PLAN_STATE_LABELS } from "@/lib/plans/states";
 import type { PlanView } from "@/lib/plans/view";
 import type { AnalysisAnswer } from "@/lib/results/analysis";
-import { DEFAULT_SETTABLE_STEPS } from "@/lib/surface/confirmation";
 import { SAFETY_NOTICE } from "@/components/shell/safety-notice";
 import { Banner } from "@/components/ui/banner";
 import { Button } from "@/components/ui/button";
@@ -26,7 +25,7 @@ import { sig, withUnit } from "./format";
 export function ConfirmationPanel({ labSlug, studyId, planId, a, params, factorUnits, canPlan }: { labSlug: string; studyId: string; planId: string; a: AnalysisAnswer; params: AnalysisParams; factorUnits: Record<string, string>; canPlan: boolean }) {
   const router = useRouter();
   const factors = Object.keys(factorUnits);
-  const defaultStep = (f: string) => String(DEFAULT_SETTABLE_STEPS[(factorUnits[f] ?? "").trim()] ?? 0);
+  const defaultStep = (f: string) => String(a.nextDesign?.settableSteps[f] ?? 0);
   const [replicates, setReplicates] = useState("3");
   const [steps, setSteps] = useState<Record<string, string>>(() => Object.fromEntries(factors.map((f) => [f, defaultStep(f)])));
   const [busy, setBusy] = useState(false);

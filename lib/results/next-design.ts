@@ -5,6 +5,7 @@
  *   model shown (lib/results/confirmation-check.ts);
  * - `steepestAscent`: from a first-order model, the path of steepest ascent stopped at the
  *   run envelope (lib/results/steepest-ascent-path.ts);
+ * - `settableSteps`: the default settable step of each factor (what the confirmation rounds to);
  * - `augmentation`: whether the plan can be augmented to a central composite design (a
  *   two-level factorial: lib/plans/augmentation.ts), and the augmentations made already.
  */
@@ -14,6 +15,7 @@ import { factorialRunsOf } from "../plans/augmentation";
 import type { PlanState } from "../plans/states";
 import type { FittedModel } from "../stats/fitted-model";
 import type { StudyResponse } from "../studies/schemas";
+import { DEFAULT_SETTABLE_STEPS } from "../surface/confirmation";
 import { confirmationChecks, type ConfirmationCheck, type ConfirmationSource } from "./confirmation-check";
 import type { AnalysisQuery } from "./schemas";
 import { steepestAscentOf, type SteepestAscentView } from "./steepest-ascent-path";
@@ -26,6 +28,8 @@ export interface DerivedPlanRef {
 }
 
 export interface NextDesign {
+  /** The settable step of each factor by default (lib/surface `DEFAULT_SETTABLE_STEPS` by unit; 0 = not rounded): what the page offers to adjust. */
+  settableSteps: Record<string, number>;
   confirmations: ConfirmationCheck[];
   steepestAscent: SteepestAscentView;
   augmentation: { available: boolean; note: string | null; plans: DerivedPlanRef[] };
@@ -48,8 +52,10 @@ export function nextDesignOf(opts: {
   const { model } = opts;
   const firstOrder = !model.terms.some((t) => t.exponents.some((e) => e >= 2));
   const steepestAscent = steepestAscentOf(model, opts.response, firstOrder && opts.safety ? opts.safety() : undefined);
+  const settableSteps = Object.fromEntries(model.factors.map((f) => [f.name, (f.unit !== undefined ? DEFAULT_SETTABLE_STEPS[f.unit.trim()] : undefined) ?? 0]));
   if (!opts.plan) {
     return {
+      settableSteps,
       confirmations: [],
       steepestAscent,
       augmentation: { available: false, note: "Plan confirmation runs or an augmentation from a plan's own analysis.", plans: [] },
@@ -57,6 +63,7 @@ export function nextDesignOf(opts: {
   }
   const found = factorialRunsOf(opts.plan.runs, model.factors.map((f) => f.name));
   return {
+    settableSteps,
     confirmations: confirmationChecks(model, opts.response.name, opts.query, opts.plan.confirmations),
     steepestAscent,
     augmentation: { available: !("reason" in found), note: "reason" in found ? found.reason : null, plans: [...opts.plan.augmentations] },

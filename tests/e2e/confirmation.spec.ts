@@ -12,7 +12,7 @@ import { DEMO, signIn } from "./support/auth";
  * and augments the plan to a central composite design. The plans are the example's recipe
  * (examples/plan-suzuki.json); their states are set to running in the database (a test
  * fixture: release is tested by the review flow's own tests), the yields entered through the
- * API. Screenshots as artifacts.
+ * API. No Content-Security-Policy violation on the way. Screenshots as artifacts.
  */
 const LAB = "kestrel-bay";
 type Run = { run: number; coded: Record<string, number> };
@@ -41,6 +41,11 @@ async function setRunning(planId: string) {
 
 test("plan confirmation runs from the analysis page, land on the new plan, and see the verdict once its results are in", async ({ page }, testInfo) => {
   test.setTimeout(120_000);
+  // The production Content-Security-Policy: the panels and the new plan page run without a violation (as tests/e2e/content-security-policy.spec.ts checks).
+  const violations: string[] = [];
+  page.on("console", (m) => {
+    if (m.type() === "error" && /Content Security Policy/i.test(m.text())) violations.push(m.text());
+  });
   await signIn(page, DEMO.chemist);
   const study = await page.request.post(`/api/labs/${LAB}/studies`, { data: { name: `E2E confirmation ${Date.now()}`, responses: [{ name: "yield", unit: "%", goal: "maximize" }] } });
   const studyId = ((await study.json()) as { study: { id: string } }).study.id;
@@ -79,6 +84,7 @@ test("plan confirmation runs from the analysis page, land on the new plan, and s
   await expect(page.getByTestId("confirmation-verdict")).toContainText("The confirmation holds");
   await expect(page.getByTestId("confirmation-chart")).toBeVisible();
   await page.getByTestId("confirmation-checks").screenshot({ path: testInfo.outputPath("confirmation-verdict.png") });
+  expect(violations).toEqual([]);
 });
 
 test("a two-level factorial's analysis proposes the path of steepest ascent and augments the plan to a central composite design", async ({ page }, testInfo) => {

@@ -37,7 +37,6 @@ vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
 const studies = await import("@/app/api/labs/[lab]/studies/route");
 const studyPlans = await import("@/app/api/labs/[lab]/studies/[studyId]/plans/route");
-const planOne = await import("@/app/api/labs/[lab]/plans/[planId]/route");
 const results = await import("@/app/api/labs/[lab]/plans/[planId]/results/route");
 const analysis = await import("@/app/api/labs/[lab]/plans/[planId]/analysis/route");
 const studyAnalysis = await import("@/app/api/labs/[lab]/studies/[studyId]/analysis/route");
@@ -78,10 +77,6 @@ async function createPlan(document: Json): Promise<PlanBody> {
   const res = await studyPlans.POST(req("/x", "POST", { document }), ctx({ studyId }));
   expect(res.status).toBe(201);
   return ((await res.json()) as { plan: PlanBody }).plan;
-}
-async function getPlan(planId: string): Promise<PlanBody> {
-  chemist();
-  return ((await (await planOne.GET(req("/x"), ctx({ planId }))).json()) as { plan: PlanBody }).plan;
 }
 async function enterResults(planId: string, yields: Array<[number, number]>): Promise<void> {
   await forcePlanState(planId, "running");
@@ -132,6 +127,7 @@ describe("the confirmation plan", () => {
     const next = a.nextDesign as { steepestAscent: { path: unknown; note: string }; augmentation: { available: boolean; note: string } };
     expect(next.steepestAscent).toMatchObject({ path: null, note: expect.stringContaining("square terms") });
     expect(next.augmentation).toMatchObject({ available: false, note: expect.stringContaining("neither a corner") });
+    expect(a.nextDesign).toMatchObject({ settableSteps: { temperature: 1, baseEquiv: 0.05, pdLoading: 0.1 } }); // the page's defaults
     const before = await planCount();
     const res = await post(confirmation.POST, source.id, { response: "yield", replicates: 3, model: "quadratic" });
     expect(res.status).toBe(201);
