@@ -227,7 +227,7 @@ export function SurfacePanel({ labSlug, source, params, optimum, onParams }: { l
         <div className="flex flex-col gap-3" data-testid="surface-body" data-x={s.x} data-y={s.y} data-held={Object.entries(s.grid.fixed).map(([k, v]) => `${k}:${v}`).join(",")}>
           <div className="grid gap-3 lg:grid-cols-[minmax(0,3fr)_minmax(16rem,2fr)]">
             <SurfaceContour surface={s} optimum={optimumOnChart} />
-            <div className="flex flex-col gap-2 text-sm" data-testid="surface-legend">
+            <div className="flex min-w-0 flex-col gap-2 break-words text-sm" data-testid="surface-legend">
               {isValidating && <p className="text-xs text-ink-faint">updating…</p>}
               {s.envelope.checked ? (
                 cautions.length + limits.length === 0 ? (
@@ -252,7 +252,7 @@ export function SurfacePanel({ labSlug, source, params, optimum, onParams }: { l
                     {limits.length > 0 && (
                       <div className="flex flex-col gap-1" data-testid="surface-limits">
                         <p className="flex items-center gap-2 font-medium">
-                          <span aria-hidden className="inline-block h-3.5 w-5 rounded-sm border border-dashed border-ink bg-[repeating-linear-gradient(45deg,#3d3c40_0_1px,#ece8e0_1px_6px)]" /> Hatched grey: outside the lab&apos;s limits
+                          <span aria-hidden className="inline-block h-3.5 w-5 rounded-sm border border-dashed border-ink bg-[repeating-linear-gradient(45deg,#3d3c40_0_1px,#ece8e0_1px_6px)]" /> Hatched grey the other way, dashed edge: outside the lab&apos;s limits
                         </p>
                         <ul className="flex flex-col gap-1 pl-1">
                           {limits.map((f) => (

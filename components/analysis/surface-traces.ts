@@ -41,19 +41,30 @@ function ringPath(r: MaskRegion): { x: Array<number | null>; y: Array<number | n
   return { x, y };
 }
 
-/** Splits a long title into lines of about `width` characters (for a label on the chart). */
-function wrap(text: string, width = 26): string {
-  const words = text.split(" ");
-  const lines: string[] = [];
-  let line = "";
-  for (const w of words) {
-    if (line && (line + " " + w).length > width) {
-      lines.push(line);
-      line = w;
-    } else line = line ? `${line} ${w}` : w;
-  }
-  if (line) lines.push(line);
-  return lines.join("<br>");
+/**
+ * Moves labels apart: in the plot's fractions (about 480 × 380 px), a label that would
+ * overlap one already placed steps up or down by its height until it is free.
+ */
+function placeLabels<T extends { at: [number, number]; text: string }>(labels: readonly T[], xr: number[], yr: number[], xLog: boolean, yLog: boolean): T[] {
+  const t = (v: number, log: boolean) => (log ? Math.log10(v) : v);
+  const frac = (v: number, r: number[], log: boolean) => (t(v, log) - t(r[0]!, log)) / (t(r[1]!, log) - t(r[0]!, log));
+  const back = (f: number, r: number[], log: boolean) => {
+    const v = t(r[0]!, log) + f * (t(r[1]!, log) - t(r[0]!, log));
+    return log ? 10 ** v : v;
+  };
+  const h = 18 / 380;
+  const placed: Array<{ x: number; y: number; w: number }> = [];
+  return labels.map((l) => {
+    const w = (l.text.replace(/<[^>]+>/g, "").length * 6.4 + 8) / 480;
+    const x = frac(l.at[0], xr, xLog);
+    const y0 = frac(l.at[1], yr, yLog);
+    let y = y0;
+    for (let k = 1; k < 40 && placed.some((p) => Math.abs(p.x - x) < (p.w + w) / 2 && Math.abs(p.y - y) < h); k++) {
+      y = Math.min(0.96, Math.max(0.04, y0 + (k % 2 ? 1 : -1) * Math.ceil(k / 2) * h));
+    }
+    placed.push({ x, y, w });
+    return { ...l, at: [l.at[0], back(y, yr, yLog)] as [number, number] };
+  });
 }
 
 export interface SurfaceMarks {
@@ -120,27 +131,25 @@ export function contourFigure(s: SurfaceAnswer, marks: SurfaceMarks = {}): { dat
     } as Data);
   }
 
-  const annotations: Array<Partial<Annotations>> = [];
-  const label = (at: [number, number] | null, text: string, color: string) => {
-    if (!at) return;
-    annotations.push({ x: at[0], y: at[1], text, showarrow: false, font: { size: 10, color }, bgcolor: "rgba(251, 248, 241, 0.9)", bordercolor: color, borderwidth: 1, borderpad: 3, align: "left" });
-  };
-  if (s.extrapolated.rings.length) label(s.extrapolated.label, "extrapolated<br>(beyond the runs)", CHART_COLORS.faint);
-  // One label per place: findings sharing a label point are listed together.
-  const byPlace = new Map<string, { at: [number, number]; lines: string[]; kind: "caution" | "limit" }>();
-  for (const f of s.envelope.findings) {
-    if (!f.label) continue;
-    const key = f.label.join(",");
-    const entry = byPlace.get(key) ?? { at: f.label, lines: [], kind: f.kind };
-    entry.lines.push(`<b>${f.code}</b> ${wrap(f.title)}`);
-    if (f.kind === "caution") entry.kind = "caution";
-    byPlace.set(key, entry);
-  }
-  for (const e of byPlace.values()) label(e.at, e.lines.join("<br>"), e.kind === "caution" ? HATCH.caution : HATCH.limit);
-
-  const base = baseLayout(`Predicted ${s.response.name}${heldLine(s)}`, axisTitle(fx, s.x), axisTitle(fy, s.y));
+  // Labels: the extrapolated region, and each finding by its code where it is most alone (titles are in the legend beside).
   const xr = [g.xNatural[0]!, g.xNatural[g.xNatural.length - 1]!];
   const yr = [g.yNatural[0]!, g.yNatural[g.yNatural.length - 1]!];
+  const wanted: Array<{ at: [number, number]; text: string; color: string }> = [];
+  if (s.extrapolated.rings.length && s.extrapolated.label) wanted.push({ at: s.extrapolated.label, text: "extrapolated", color: CHART_COLORS.faint });
+  for (const f of s.envelope.findings) if (f.label) wanted.push({ at: f.label, text: `<b>${f.code}</b>`, color: f.kind === "caution" ? HATCH.caution : HATCH.limit });
+  const annotations: Array<Partial<Annotations>> = placeLabels(wanted, xr, yr, fx?.scale === "log", fy?.scale === "log").map((l) => ({
+    x: l.at[0],
+    y: l.at[1],
+    text: l.text,
+    showarrow: false,
+    font: { size: 10, color: l.color },
+    bgcolor: "rgba(251, 248, 241, 0.92)",
+    bordercolor: l.color,
+    borderwidth: 1,
+    borderpad: 2,
+  }));
+
+  const base = baseLayout(`Predicted ${s.response.name}${heldLine(s)}`, axisTitle(fx, s.x), axisTitle(fy, s.y));
   const logRange = (r: number[]) => r.map((v) => Math.log10(v));
   return {
     data,
