@@ -128,7 +128,10 @@ try {
       ensurePoppler(); // the report tests read their PDFs with pdftotext and render them with pdftoppm
       vitest("unit", baseEnv);
     }
-    if (suites.includes("integration")) vitest("integration", env);
+    if (suites.includes("integration")) {
+      ensurePoppler(); // the analysis report's route test reads its PDF with pdftotext
+      vitest("integration", env);
+    }
     if (suites.includes("e2e")) await e2e();
   } finally {
     await stopWorker();
