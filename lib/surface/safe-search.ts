@@ -11,7 +11,7 @@
  * point returned has been evaluated by the callback and found feasible.
  */
 import type { Rng } from "../doe/randomize";
-import { inRegion, projectOntoRegion, rankedStarts, type Objective, type Region } from "./solvers";
+import { inRegion, patternSearch, projectOntoRegion, rankedStarts, type Objective, type Region } from "./solvers";
 
 export interface SafeSearchOptions {
   /** Random points sampled in the region for starts (default 400). */
@@ -108,27 +108,5 @@ function feasibleAscent(obj: Objective, region: Region, ok: (x: readonly number[
 
 /** Compass search polish over feasible points only (infeasible trial points count as no better). */
 function feasibleCompass(obj: Objective, region: Region, ok: (x: readonly number[]) => boolean, start: readonly number[], f0: number, initial = 0.05, minStep = 1e-6): { x: number[]; value: number } {
-  let x = [...start];
-  let fx = f0;
-  let step = initial;
-  const k = x.length;
-  while (step > minStep) {
-    let improved = false;
-    for (let i = 0; i < k && !improved; i++) {
-      for (const s of [1, -1]) {
-        const y = [...x];
-        y[i]! += s * step;
-        if (!inRegion(region, y)) continue;
-        const fy = obj.f(y);
-        if (fy > fx + 1e-15 * (1 + Math.abs(fx)) && ok(y)) {
-          x = y;
-          fx = fy;
-          improved = true;
-          break;
-        }
-      }
-    }
-    if (!improved) step /= 2;
-  }
-  return { x, value: fx };
+  return patternSearch(obj, start, f0, { admit: (y) => (inRegion(region, y) ? y : null), accept: ok, initial, minStep });
 }

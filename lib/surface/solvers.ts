@@ -278,10 +278,21 @@ export function projectedGradientAscent(obj: Objective, region: Region, start: r
   return { x, value: fx };
 }
 
-/** Compass (pattern) search polish inside the region, for non-smooth objectives. */
-export function compassSearch(obj: Objective, region: Region, start: readonly number[], initial = 0.1, minStep = 1e-9): { x: number[]; value: number } {
+/**
+ * Compass (pattern) search: from `start` (objective `f0`), try ± `step` along each axis,
+ * take the first trial point that `admit` turns into a point of the region (or null),
+ * that improves the objective and that `accept` (checked last: it may be costly) takes,
+ * and halve the step when none does, down to `minStep`.
+ */
+export function patternSearch(
+  obj: Objective,
+  start: readonly number[],
+  f0: number,
+  opts: { admit: (y: number[]) => number[] | null; accept?: (y: readonly number[]) => boolean; initial: number; minStep: number },
+): { x: number[]; value: number } {
+  const { admit, accept = () => true, initial, minStep } = opts;
   let x = [...start];
-  let fx = obj.f(x);
+  let fx = f0;
   let step = initial;
   const k = x.length;
   while (step > minStep) {
@@ -290,10 +301,10 @@ export function compassSearch(obj: Objective, region: Region, start: readonly nu
       for (const s of [1, -1]) {
         const y = [...x];
         y[i]! += s * step;
-        const py = projectOntoRegion(region, y);
+        const py = admit(y);
         if (!py) continue;
         const fy = obj.f(py);
-        if (fy > fx + 1e-15 * (1 + Math.abs(fx))) {
+        if (fy > fx + 1e-15 * (1 + Math.abs(fx)) && accept(py)) {
           x = py;
           fx = fy;
           improved = true;
@@ -304,6 +315,11 @@ export function compassSearch(obj: Objective, region: Region, start: readonly nu
     if (!improved) step /= 2;
   }
   return { x, value: fx };
+}
+
+/** Compass (pattern) search polish inside the region, for non-smooth objectives: trial points are projected onto the region. */
+export function compassSearch(obj: Objective, region: Region, start: readonly number[], initial = 0.1, minStep = 1e-9): { x: number[]; value: number } {
+  return patternSearch(obj, start, obj.f([...start]), { admit: (y) => projectOntoRegion(region, y), initial, minStep });
 }
 
 /**
