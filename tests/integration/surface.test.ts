@@ -78,7 +78,7 @@ beforeAll(async () => {
 });
 beforeEach(() => signInAs(null));
 
-const getSurface = async (query: string, lab_ = lab) => {
+const getSurface = async (query: string, lab_: string = lab) => {
   const res = await surface.GET(req(`/x?${query}`), ctx({ planId }, lab_));
   return { status: res.status, body: (await res.json()) as { surface: Surface } & ErrorBody };
 };
