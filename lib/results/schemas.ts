@@ -192,3 +192,4 @@ export const studySurfaceQuerySchema = studyAnalysisQuerySchema.extend(surfacePa
 /** `GET /plans/{plan}/analysis-report.pdf?…`: the analysis query plus the contour's axes and sliders (defaults: the two strongest factors, the others at the optimum). */
 export const reportQuerySchema = analysisQuerySchema.extend(surfaceParams(61));
 export const studyReportQuerySchema = studyAnalysisQuerySchema.extend(surfaceParams(61));
+export type ReportQuery = z.output<typeof reportQuerySchema>;

@@ -3,7 +3,7 @@ import type { Transaction } from "sequelize";
 import { parseOrThrow } from "@/lib/errors/app-error";
 import { analyzeSources, type AnalysisAnswer } from "../analysis";
 import { analysisQuerySchema } from "../schemas";
-import { planAnalysisSources } from "./analysis-sources";
+import { planAnalysisSources } from "./read-analysis-sources";
 
 /**
  * The analysis of a plan's results (CONTRACT.md `GET /plans/{plan}/analysis?response=&model=&alpha=&hierarchy=`,

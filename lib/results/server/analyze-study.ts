@@ -3,7 +3,7 @@ import type { Transaction } from "sequelize";
 import { parseOrThrow } from "@/lib/errors/app-error";
 import { analyzeSources, type AnalysisAnswer } from "../analysis";
 import { studyAnalysisQuerySchema } from "../schemas";
-import { studyAnalysisSources } from "./analysis-sources";
+import { studyAnalysisSources } from "./read-analysis-sources";
 
 /**
  * Several plans of one study analysed together with a block term (CONTRACT.md

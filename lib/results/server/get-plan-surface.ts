@@ -3,7 +3,7 @@ import type { Transaction } from "sequelize";
 import { parseOrThrow } from "@/lib/errors/app-error";
 import { surfaceOfSources, type SurfaceAnswer } from "../surface";
 import { surfaceQuerySchema } from "../schemas";
-import { planAnalysisSources } from "./analysis-sources";
+import { planAnalysisSources } from "./read-analysis-sources";
 
 /**
  * The response surface of a plan's analysis (`GET /plans/{plan}/analysis/surface?…`): the

@@ -3,7 +3,7 @@ import type { Transaction } from "sequelize";
 import { parseOrThrow } from "@/lib/errors/app-error";
 import { surfaceOfSources, type SurfaceAnswer } from "../surface";
 import { studySurfaceQuerySchema } from "../schemas";
-import { studyAnalysisSources } from "./analysis-sources";
+import { studyAnalysisSources } from "./read-analysis-sources";
 
 /**
  * The response surface of several plans of a study analysed together, as getPlanSurface (`GET /studies/{study}/analysis/surface?plans=a,b&…`;

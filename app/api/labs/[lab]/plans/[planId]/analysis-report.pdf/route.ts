@@ -1,6 +1,6 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { route } from "@/lib/api/route";
-import { renderPlanAnalysisReport } from "@/lib/results/server/render-analysis-report";
+import { renderPlanAnalysisReport } from "@/lib/results/server/render-plan-analysis-report";
 
 type Ctx = { params: Promise<{ lab: string; planId: string }> };
 

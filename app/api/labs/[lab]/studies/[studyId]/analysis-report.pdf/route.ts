@@ -1,6 +1,6 @@
 import { requireLabAccess } from "@/lib/auth/access";
 import { route } from "@/lib/api/route";
-import { renderStudyAnalysisReport } from "@/lib/results/server/render-analysis-report";
+import { renderStudyAnalysisReport } from "@/lib/results/server/render-study-analysis-report";
 
 type Ctx = { params: Promise<{ lab: string; studyId: string }> };
 
