@@ -14,7 +14,7 @@
 import { AppError, type FieldIssue } from "../errors/app-error";
 import { codeValue, decodeValue } from "../doe/factors";
 import type { FittedModel } from "../stats/fitted-model";
-import { maskRegion, type MaskRegion } from "../surface/regions";
+import { maskLabel, maskRegion, type MaskRegion } from "../surface/regions";
 import { surfaceGrid, type SurfaceGrid } from "../surface/grid";
 import { studiedRanges } from "../surface/studied-region";
 import type { StudyResponse } from "../studies/schemas";
@@ -165,7 +165,7 @@ export function surfaceOfSources(
     let fewest = Infinity;
     for (const row of grid.blocked!) for (const cell of row) if (cell.includes(k)) fewest = Math.min(fewest, cell.length);
     const alone = grid.blocked!.map((row) => row.map((cell) => cell.includes(k) && cell.length === fewest));
-    return { index: k, code: c.code, kind: kinds[k]!, title: findingTitle(c.code), message: c.message, points: c.points, share: c.points / total, label: maskRegion(mask, grid.xNatural, grid.yNatural, alone).label };
+    return { index: k, code: c.code, kind: kinds[k]!, title: findingTitle(c.code), message: c.message, points: c.points, share: c.points / total, label: maskLabel(mask, grid.xNatural, grid.yNatural, alone) };
   });
   const ranges = studiedRanges(model);
   const factors: SurfaceFactor[] = model.factors.map((f, i) => ({

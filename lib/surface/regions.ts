@@ -32,6 +32,31 @@ function along(axis: readonly number[], t: number): number {
   return axis[i]! + (t - i) * (axis[i + 1]! - axis[i]!);
 }
 
+/** The mask flattened row by row (1 marked, 0 not), after checking its shape against the axes. */
+function flatMask(mask: readonly (readonly boolean[])[], nx: number, ny: number): number[] {
+  if (mask.length !== ny || mask.some((row) => row.length !== nx)) throw new RangeError("the mask must have one row per y sample and one column per x sample");
+  const values = new Array<number>(nx * ny);
+  for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) values[j * nx + i] = mask[j]![i] ? 1 : 0;
+  return values;
+}
+
+/** The label point of flattened samples: inside `labelMask` too when that meets them. */
+function labelOf(values: readonly number[], nx: number, ny: number, xAxis: readonly number[], yAxis: readonly number[], labelMask?: readonly (readonly boolean[])[]): [number, number] {
+  const inLabel = labelMask ? values.map((v, k) => (v && labelMask[Math.floor(k / nx)]?.[k % nx] ? 1 : 0)) : values;
+  const [li, lj] = deepestSample(inLabel.some((v) => v === 1) ? inLabel : values, nx, ny);
+  return [xAxis[li]!, yAxis[lj]!];
+}
+
+/**
+ * The label point alone (no outline) of the samples where `mask[j][i]` holds, inside
+ * `labelMask` too when that meets them; null when nothing is marked.
+ * Example: maskLabel(mask, grid.xNatural, grid.yNatural)
+ */
+export function maskLabel(mask: readonly (readonly boolean[])[], xAxis: readonly number[], yAxis: readonly number[], labelMask?: readonly (readonly boolean[])[]): [number, number] | null {
+  const values = flatMask(mask, xAxis.length, yAxis.length);
+  return values.includes(1) ? labelOf(values, xAxis.length, yAxis.length, xAxis, yAxis, labelMask) : null;
+}
+
 /**
  * The outline of the samples where `mask[j][i]` holds (sample i along `xAxis`, j along
  * `yAxis`), with a label point (inside `labelMask` too, when given and it meets the region).
@@ -40,15 +65,8 @@ function along(axis: readonly number[], t: number): number {
 export function maskRegion(mask: readonly (readonly boolean[])[], xAxis: readonly number[], yAxis: readonly number[], labelMask?: readonly (readonly boolean[])[]): MaskRegion {
   const nx = xAxis.length;
   const ny = yAxis.length;
-  if (mask.length !== ny || mask.some((row) => row.length !== nx)) throw new RangeError("the mask must have one row per y sample and one column per x sample");
-  const values = new Array<number>(nx * ny);
-  let marked = 0;
-  for (let j = 0; j < ny; j++)
-    for (let i = 0; i < nx; i++) {
-      const m = mask[j]![i] ? 1 : 0;
-      values[j * nx + i] = m;
-      marked += m;
-    }
+  const values = flatMask(mask, nx, ny);
+  const marked = values.reduce((s, v) => s + v, 0);
   if (marked === 0) return { rings: [], label: null, share: 0 };
   // d3-contour puts sample i at i + 0.5 and closes regions along the grid's border.
   const [shape] = contours().size([nx, ny]).thresholds([0.5])(values);
@@ -56,10 +74,7 @@ export function maskRegion(mask: readonly (readonly boolean[])[], xAxis: readonl
   for (const polygon of shape?.coordinates ?? []) {
     for (const ring of polygon) rings.push(ring.map((p): [number, number] => [along(xAxis, p[0]! - 0.5), along(yAxis, p[1]! - 0.5)]));
   }
-  // The label goes where `labelMask` holds (a part of the region), when it holds anywhere.
-  const inLabel = labelMask ? values.map((v, k) => (v && labelMask[Math.floor(k / nx)]?.[k % nx] ? 1 : 0)) : values;
-  const [li, lj] = deepestSample(inLabel.some((v) => v === 1) ? inLabel : values, nx, ny);
-  return { rings, label: [xAxis[li]!, yAxis[lj]!], share: marked / (nx * ny) };
+  return { rings, label: labelOf(values, nx, ny, xAxis, yAxis, labelMask), share: marked / (nx * ny) };
 }
 
 /**
