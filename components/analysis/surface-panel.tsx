@@ -225,7 +225,7 @@ export function SurfacePanel({ labSlug, source, params, optimum, onParams }: { l
       {!s && !error && <p className="text-sm text-ink-soft">Computing the surface and the safe envelope…</p>}
       {s && (
         <div className="flex flex-col gap-3" data-testid="surface-body" data-x={s.x} data-y={s.y} data-held={Object.entries(s.grid.fixed).map(([k, v]) => `${k}:${v}`).join(",")}>
-          <div className="grid gap-3 lg:grid-cols-[minmax(0,3fr)_minmax(16rem,2fr)]">
+          <div className="grid gap-3 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             <SurfaceContour surface={s} optimum={optimumOnChart} />
             <div className="flex min-w-0 flex-col gap-2 break-words text-sm" data-testid="surface-legend">
               {isValidating && <p className="text-xs text-ink-faint">updating…</p>}

@@ -191,7 +191,8 @@ export function surfaceOfSources(
     y,
     factors,
     grid,
-    extrapolated: maskRegion(grid.extrapolated, grid.xNatural, grid.yNatural),
+    // Labelled where nothing blocks, when there is such a place (the hatching would hide it).
+    extrapolated: maskRegion(grid.extrapolated, grid.xNatural, grid.yNatural, grid.extrapolated.map((row, j) => row.map((e, i) => e && !grid.blocked?.[j]?.[i]?.length))),
     envelope: {
       checked: env !== null,
       of: envelope ? envelope.plan : null,

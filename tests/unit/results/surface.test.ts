@@ -108,6 +108,11 @@ describe("the surface of an analysis", () => {
     expect(s.envelope.cautions.rings.length).toBeGreaterThan(0);
     expect(s.envelope.limits.rings.length).toBeGreaterThan(0);
     expect(s.extrapolated.rings.length).toBeGreaterThan(0);
+    // The extrapolated region (past the runs, 125 °C) is labelled where nothing blocks yet: below 130 °C.
+    const [ex, ey] = s.extrapolated.label!;
+    expect(s.grid.blocked![s.grid.yNatural.indexOf(ey)]![s.grid.xNatural.indexOf(ex)]).toEqual([]);
+    expect(ex).toBeGreaterThan(125);
+    expect(ex).toBeLessThan(130);
   });
   it("holds a factor where the slider sets it, and says which runs lie on that slice", () => {
     const s = surfaceOfSources([source], RESPONSES, q({ x: "temperature", y: "pdLoading", hold: "baseEquiv:3" }), envelope);
