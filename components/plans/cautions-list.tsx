@@ -47,7 +47,7 @@ export function CautionsList({ report, testId = "cautions", onRunsClick }: { rep
       </div>
       {report.signOffRequired && report.signOffReasons.length > 0 && (
         <p className="text-sm text-ink-soft">
-          Sign-off because of {report.signOffReasons.join("; ")}.
+          Sign-off because of {report.signOffReasons.map((r) => r.replace(/\.$/, "")).join("; ")}.
         </p>
       )}
       {sorted.length === 0 ? (

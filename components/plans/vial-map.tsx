@@ -214,7 +214,7 @@ export function VialMap(props: VialMapProps) {
   };
   return (
     <section aria-label="Vial map" className="flex flex-col gap-4 lg:flex-row lg:items-start">
-      <div className="flex flex-col gap-4">
+      <div className="flex min-w-0 flex-1 flex-col gap-4">
         <div className="flex flex-wrap gap-6">
           {map.blocks.map((b) => (
             <Block key={b.index} block={b} suffix={`${suffix}b${b.index}`} active={active} highlight={highlight} describe={describe} onPick={pick} />
@@ -238,7 +238,8 @@ export function VialMap(props: VialMapProps) {
           ))}
         </ul>
       </div>
-      <aside className="min-w-64 max-w-sm rounded-md border border-ink-line bg-paper-card p-3 print:hidden" aria-live="polite">
+      {/* A fixed width beside the blocks: a panel that grew as it filled would rewrap them and put another vial under the pointer. */}
+      <aside className="w-full max-w-sm rounded-md border border-ink-line bg-paper-card p-3 lg:w-64 lg:shrink-0 print:hidden" aria-live="polite">
         <RunPanel run={active === null ? undefined : byRun.get(active)} vial={active === null ? undefined : place.get(active)?.vial} factorUnits={factorUnits} />
       </aside>
     </section>

@@ -72,12 +72,12 @@ export function BlocksSection({ labSlug, value, version, editable, onSaved }: { 
                       {e && <span className="text-xs text-blocks">has errors</span>}
                     </summary>
                     <div className="grid gap-3 border-t border-ink-line p-3 sm:grid-cols-2 lg:grid-cols-4">
-                      <TextInput register={register} name={`${p}.id`} label="Id" mono error={e?.id?.message} />
+                      <TextInput idPrefix="blocks" register={register} name={`${p}.id`} label="Id" mono error={e?.id?.message} />
                       <div className="lg:col-span-3">
-                        <TextInput register={register} name={`${p}.name`} label="Name" error={e?.name?.message} />
+                        <TextInput idPrefix="blocks" register={register} name={`${p}.name`} label="Name" error={e?.name?.message} />
                       </div>
-                      <Field label="Positions" htmlFor={`${p}.positions`} error={e?.positions?.message}>
-                        <select id={`${p}.positions`} className={inputClass} {...register(`${p}.positions`, { setValueAs: (v: unknown) => Number(v) })}>
+                      <Field label="Positions" htmlFor={`blocks-${p}.positions`} error={e?.positions?.message}>
+                        <select id={`blocks-${p}.positions`} className={inputClass} {...register(`${p}.positions`, { setValueAs: (v: unknown) => Number(v) })}>
                           {BLOCK_POSITIONS.map((n) => (
                             <option key={n} value={n}>
                               {n}
@@ -85,16 +85,16 @@ export function BlocksSection({ labSlug, value, version, editable, onSaved }: { 
                           ))}
                         </select>
                       </Field>
-                      <Field label="Heats or cools" htmlFor={`${p}.mode`} error={e?.mode?.message}>
-                        <select id={`${p}.mode`} className={inputClass} {...register(`${p}.mode`)}>
+                      <Field label="Heats or cools" htmlFor={`blocks-${p}.mode`} error={e?.mode?.message}>
+                        <select id={`blocks-${p}.mode`} className={inputClass} {...register(`${p}.mode`)}>
                           <option value="heating">Heating</option>
                           <option value="cooling">Cooling</option>
                         </select>
                       </Field>
-                      <NumberInput register={register} name={`${p}.minC`} label="Lowest temperature" unit="°C" error={e?.minC?.message} />
-                      <NumberInput register={register} name={`${p}.maxC`} label="Highest temperature" unit="°C" error={e?.maxC?.message} />
+                      <NumberInput idPrefix="blocks" register={register} name={`${p}.minC`} label="Lowest temperature" unit="°C" error={e?.minC?.message} />
+                      <NumberInput idPrefix="blocks" register={register} name={`${p}.maxC`} label="Highest temperature" unit="°C" error={e?.maxC?.message} />
                       <div className="sm:col-span-2 lg:col-span-4">
-                        <TextInput register={register} name={`${p}.source`} label="Where the range comes from" error={e?.source?.message} />
+                        <TextInput idPrefix="blocks" register={register} name={`${p}.source`} label="Where the range comes from" error={e?.source?.message} />
                       </div>
                       {editable && (
                         <div className="sm:col-span-2 lg:col-span-4">

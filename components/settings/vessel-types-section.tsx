@@ -89,21 +89,21 @@ export function VesselTypesSection({ labSlug, value, version, editable, onSaved 
                       {e && <span className="text-xs text-blocks">has errors</span>}
                     </summary>
                     <div className="grid gap-3 border-t border-ink-line p-3 sm:grid-cols-2 lg:grid-cols-4">
-                      <TextInput register={register} name={`${p}.id`} label="Id" mono error={e?.id?.message} />
+                      <TextInput idPrefix="vessels" register={register} name={`${p}.id`} label="Id" mono error={e?.id?.message} />
                       <div className="lg:col-span-3">
-                        <TextInput register={register} name={`${p}.name`} label="Name" error={e?.name?.message} />
+                        <TextInput idPrefix="vessels" register={register} name={`${p}.name`} label="Name" error={e?.name?.message} />
                       </div>
-                      <NumberInput register={register} name={`${p}.totalVolumeMl`} label="Total volume" unit="mL" error={e?.totalVolumeMl?.message} />
-                      <NumberInput register={register} name={`${p}.workingMinMl`} label="Working volume from" unit="mL" error={e?.workingMinMl?.message} />
-                      <NumberInput register={register} name={`${p}.workingMaxMl`} label="Working volume to" unit="mL" error={e?.workingMaxMl?.message} />
-                      <NumberInput register={register} name={`${p}.maxFillFraction`} label="Maximum fill" unit="of total (0–1)" error={e?.maxFillFraction?.message} />
-                      <NumberInput register={register} name={`${p}.ratedBar`} label="Pressure rating" unit="bar abs." error={e?.ratedBar?.message} />
+                      <NumberInput idPrefix="vessels" register={register} name={`${p}.totalVolumeMl`} label="Total volume" unit="mL" error={e?.totalVolumeMl?.message} />
+                      <NumberInput idPrefix="vessels" register={register} name={`${p}.workingMinMl`} label="Working volume from" unit="mL" error={e?.workingMinMl?.message} />
+                      <NumberInput idPrefix="vessels" register={register} name={`${p}.workingMaxMl`} label="Working volume to" unit="mL" error={e?.workingMaxMl?.message} />
+                      <NumberInput idPrefix="vessels" register={register} name={`${p}.maxFillFraction`} label="Maximum fill" unit="of total (0–1)" error={e?.maxFillFraction?.message} />
+                      <NumberInput idPrefix="vessels" register={register} name={`${p}.ratedBar`} label="Pressure rating" unit="bar abs." error={e?.ratedBar?.message} />
                       <div className="flex flex-col justify-end gap-2 lg:col-span-3">
-                        <CheckboxInput register={register} name={`${p}.sealed`} label="Sealed (pressure builds); unticked for vented vessels" />
-                        <CheckboxInput register={register} name={`${p}.confirmWithSupplier`} label="Values not yet confirmed with the supplier" />
+                        <CheckboxInput idPrefix="vessels" register={register} name={`${p}.sealed`} label="Sealed (pressure builds); unticked for vented vessels" />
+                        <CheckboxInput idPrefix="vessels" register={register} name={`${p}.confirmWithSupplier`} label="Values not yet confirmed with the supplier" />
                       </div>
                       <div className="sm:col-span-2 lg:col-span-4">
-                        <TextInput register={register} name={`${p}.source`} label="Where the rating comes from" hint="A data sheet, a certificate, the lab's own test…" error={e?.source?.message} />
+                        <TextInput idPrefix="vessels" register={register} name={`${p}.source`} label="Where the rating comes from" hint="A data sheet, a certificate, the lab's own test…" error={e?.source?.message} />
                       </div>
                       {editable && (
                         <div className="sm:col-span-2 lg:col-span-4">

@@ -6,7 +6,7 @@ import type { StudyPage, StudyQuery, StudyRow } from "@/lib/studies/schemas";
 import { useStudies } from "@/lib/hooks/use-studies";
 import { DataTable, tableColumns } from "@/components/ui/data-table";
 import { Banner } from "@/components/ui/banner";
-import { Button, buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { When, responseGoalText } from "./bits";
 
@@ -39,7 +39,6 @@ export function StudiesClient({ labSlug, canCreate, initial }: { labSlug: string
   const { data, error, isLoading } = useStudies(labSlug, query, isInitial ? initial : undefined);
   const rows = data?.studies ?? [];
   const total = data?.total ?? 0;
-  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
 
   const columns = col.columns([
     col.accessor("name", {
@@ -107,20 +106,8 @@ export function StudiesClient({ labSlug, canCreate, initial }: { labSlug: string
           setPage(1);
         }}
         empty={empty}
+        paging={{ page, pageSize: PAGE_SIZE, total, noun: ["study", "studies"], onChange: (p) => setPage(p) }}
       />
-      <div className="flex items-center justify-between text-sm text-ink-soft">
-        <span className="num" data-testid="studies-count">
-          {total} stud{total === 1 ? "y" : "ies"} · page {Math.min(page, pages)} of {pages}
-        </span>
-        <div className="flex gap-2">
-          <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => Math.max(1, p - 1))}>
-            Previous
-          </Button>
-          <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
-            Next
-          </Button>
-        </div>
-      </div>
     </div>
   );
 }

@@ -41,10 +41,48 @@ const LABELS: Record<string, string> = {
   expiresAt: "expires",
   revokedAt: "revoked",
   selector: "token begins",
+  // Lab settings (lib/lab-settings/schemas.ts), as the settings page words them.
+  minC: "lowest temperature",
+  maxC: "highest temperature",
+  ratedBar: "pressure rating",
+  totalVolumeMl: "total volume",
+  workingMinMl: "working volume from",
+  workingMaxMl: "working volume to",
+  maxFillFraction: "maximum fill",
+  confirmWithSupplier: "not yet confirmed with the supplier",
+  minPipetteVolumeUl: "smallest volume pipetted",
+  minWeighMassMg: "smallest mass weighed",
+  overagePercent: "overage",
+  deadVolumeUl: "dead volume per stock",
+  maxStockVolumeMl: "largest stock",
+  stockFillFraction: "stock share of a vial's solvent",
+  signOffTemperatureC: "sign-off needed from",
+  pyrophoricSecondPersonVolumeMl: "second person above",
+  autoignitionMarginC: "autoignition margin",
+  peroxideTestIntervalMonths: "peroxide test interval",
 };
 
 /** Units written after a field's number (PRODUCT.md "Look": units always next to numbers). */
-const UNITS: Record<string, string> = { molarMass: "g/mol", density: "g/mL", purityPercent: "%", sizeBytes: "bytes" };
+const UNITS: Record<string, string> = {
+  molarMass: "g/mol",
+  density: "g/mL",
+  purityPercent: "%",
+  sizeBytes: "bytes",
+  minC: "°C",
+  maxC: "°C",
+  ratedBar: "bar",
+  totalVolumeMl: "mL",
+  workingMinMl: "mL",
+  workingMaxMl: "mL",
+  minPipetteVolumeUl: "µL",
+  minWeighMassMg: "mg",
+  overagePercent: "%",
+  deadVolumeUl: "µL",
+  maxStockVolumeMl: "mL",
+  signOffTemperatureC: "°C",
+  pyrophoricSecondPersonVolumeMl: "mL",
+  autoignitionMarginC: "K",
+};
 /** Decimal fields whose unit is given by another field (shown as numbers, trailing zeros dropped). */
 const DECIMALS = new Set(["concentration"]);
 
@@ -105,15 +143,31 @@ function same(a: unknown, b: unknown): boolean {
   return JSON.stringify(norm(a)) === JSON.stringify(norm(b));
 }
 
+/** Nested records are compared field by field to this depth; deeper, a record is shown whole. */
+const MAX_DEPTH = 6;
+
+/** Both sides records, or both lists of the same length holding records: compared inside. */
+function comparableInside(b: unknown, a: unknown): boolean {
+  if (isRecord(b) && isRecord(a)) return true;
+  return Array.isArray(b) && Array.isArray(a) && b.length === a.length && [...b, ...a].some(isRecord);
+}
+
 /**
  * The fields that differ between `before` and `after` (either may be null: a record made or
  * removed), in the order the record lists them. For a record made or removed, only the
- * fields that were set are listed. `context.dimension` formats amounts the entry does not
- * say the dimension of.
+ * fields that were set are listed. A field holding a record (or a list of records) on both
+ * sides is compared inside, so a change deep in a plan document or a settings section reads
+ * as its own line ("value › types 1 › source: … → …", lists counted from 1), not as the
+ * whole record twice. `context.dimension` formats amounts the entry does not say the
+ * dimension of.
  */
 export function auditChanges(before: unknown, after: unknown, context: { dimension?: Dimension | null } = {}): FieldChange[] {
   const b = isRecord(before) ? before : before === null || before === undefined ? null : { value: before };
   const a = isRecord(after) ? after : after === null || after === undefined ? null : { value: after };
+  return changesOf(b, a, context, "", "", 0);
+}
+
+function changesOf(b: Record_ | null, a: Record_ | null, context: { dimension?: Dimension | null }, fieldPrefix: string, labelPrefix: string, depth: number): FieldChange[] {
   const fields = [...new Set([...Object.keys(a ?? {}), ...Object.keys(b ?? {})])].filter((k) => !HIDDEN.has(k) && !isHelperField(k, a) && !isHelperField(k, b));
   const oneSided = !a || !b;
   const changes: FieldChange[] = [];
@@ -121,6 +175,22 @@ export function auditChanges(before: unknown, after: unknown, context: { dimensi
     const bv = b?.[field];
     const av = a?.[field];
     if (same(bv, av)) continue;
+    const path = `${fieldPrefix}${field}`;
+    const label = `${labelPrefix}${fieldLabel(field)}`;
+    if (!oneSided && depth < MAX_DEPTH && comparableInside(bv, av)) {
+      if (isRecord(bv) && isRecord(av)) changes.push(...changesOf(bv, av, context, `${path}.`, `${label} › `, depth + 1));
+      else {
+        const bl = bv as unknown[];
+        const al = av as unknown[];
+        bl.forEach((item, i) => {
+          const other = al[i];
+          if (same(item, other)) return;
+          if (isRecord(item) && isRecord(other)) changes.push(...changesOf(item, other, context, `${path}.${i}.`, `${label} ${i + 1} › `, depth + 1));
+          else changes.push({ field: `${path}.${i}`, label: `${label} ${i + 1}`, before: formatValue(item), after: formatValue(other) });
+        });
+      }
+      continue;
+    }
     const bs = b ? formatValue(bv, field, dimensionFor(b, field, context.dimension)) : null;
     const as = a ? formatValue(av, field, dimensionFor(a, field, context.dimension)) : null;
     // The same value written differently (the database's "0.8890" and the form's "0.889") is no change.
@@ -130,7 +200,7 @@ export function auditChanges(before: unknown, after: unknown, context: { dimensi
       const shown = bs ?? as;
       if (shown === null || shown === "none" || shown === "no") continue;
     }
-    changes.push({ field, label: fieldLabel(field), before: bs, after: as });
+    changes.push({ field: path, label, before: bs, after: as });
   }
   return changes;
 }

@@ -100,3 +100,36 @@ test("settings: lab admins edit equipment, safety officers the thresholds, chemi
   await expect(page.getByLabel("Sign-off needed from")).toBeDisabled();
   await page.screenshot({ path: testInfo.outputPath("settings-chemist.png"), fullPage: false });
 });
+
+test("a lab admin's change to the blocks is saved, kept after a reload and in the audit log as before → after", async ({ page }, testInfo) => {
+  const note = `checked with a calibrated probe ${randomUUID().slice(0, 6)}`;
+  await signIn(page, DEMO.admin);
+  await page.goto(`${LAB}/settings`);
+  const blocks = page.getByTestId("settings-blocks");
+  const source = blocks.locator('[id="blocks-types.0.source"]');
+  await blocks.getByTestId("block-kb-al-24").click();
+  const before = await source.inputValue();
+  await source.fill(`${before} ${note}`);
+  await page.getByTestId("save-blocks").click();
+  await expect(page.getByTestId("settings-blocks-message")).toContainText("Blocks saved");
+
+  await page.reload();
+  await blocks.getByTestId("block-kb-al-24").click();
+  await expect(source).toHaveValue(`${before} ${note}`);
+
+  // The change is audited (lib/lab-settings/server/update-lab-settings.ts): the newest entry, by the admin, with the text before → after.
+  await openSection(page, "Audit log");
+  const newest = page.getByTestId("audit").locator("tbody tr").first();
+  await expect(newest).toContainText("Gareth Lune");
+  await expect(newest).toContainText(/lab settings/i);
+  await expect(newest.getByTestId("audit-changes")).toContainText(note);
+  await expect(newest.getByTestId("audit-changes")).toContainText("→");
+  await page.screenshot({ path: testInfo.outputPath("settings-audited.png"), fullPage: false });
+
+  // Put the demo's text back (other tests read the demo lab's settings).
+  await page.goto(`${LAB}/settings`);
+  await blocks.getByTestId("block-kb-al-24").click();
+  await source.fill(before);
+  await page.getByTestId("save-blocks").click();
+  await expect(page.getByTestId("settings-blocks-message")).toContainText("Blocks saved");
+});

@@ -7,14 +7,14 @@
  * stored document with the lab's values), the preview's state, and `onApply`, which puts a
  * new design section and factor list into the form (the chemist still saves explicitly).
  *
- * The safe-design alternatives panel (components/plans/safe-design/**) is meant to be
- * registered here: `{ id: "safe-design", Panel: SafeDesignPanel }`. A panel with nothing
- * to say renders null.
+ * Registered: the safe-design alternatives panel (components/plans/safe-design/**). A panel
+ * with nothing to say renders null.
  */
 import type { ComponentType } from "react";
 import type { PlanDocumentInput } from "@/lib/chemistry/plan-document";
 import type { PreviewStatus } from "@/lib/hooks/use-plan-preview";
 import type { PlanPreview } from "@/lib/plans/preview";
+import { SafeDesignPanel } from "../safe-design/safe-design-panel";
 
 export interface EditorPanelProps {
   labSlug: string;
@@ -34,4 +34,4 @@ export interface EditorPanel {
 }
 
 /** The panels mounted in the editor (see the module comment). */
-export const EDITOR_PANELS: readonly EditorPanel[] = [];
+export const EDITOR_PANELS: readonly EditorPanel[] = [{ id: "safe-design", Panel: SafeDesignPanel }];

@@ -20,7 +20,7 @@ export function AlternativesTable({ rows, originalRuns, onApply }: { rows: Alter
           <th className="py-1 pr-2 font-medium">Alternative</th>
           <th className="py-1 pr-2 text-right font-medium">Runs</th>
           <th className="py-1 pr-2 font-medium">Blocks?</th>
-          <th className="py-1 pr-2 text-right font-medium" title="D-efficiency relative to the plan's design for the model">D-eff.</th>
+          <th className="whitespace-nowrap py-1 pr-2 text-right font-medium" title="D-efficiency relative to the plan's design for the model">D-eff.</th>
           <th className="py-1 font-medium">
             <span className="sr-only">Apply</span>
           </th>
@@ -73,7 +73,7 @@ export function AlternativesTable({ rows, originalRuns, onApply }: { rows: Alter
                   </span>
                 )}
               </td>
-              <td className="num py-2 pr-2 text-right">{eff}</td>
+              <td className="num whitespace-nowrap py-2 pr-2 text-right">{eff}</td>
               <td className="py-2 text-right">
                 <Button type="button" variant={a.nothingBlocks ? "primary" : "secondary"} className="px-2 py-1 text-xs" onClick={() => onApply(a)} data-testid={`apply-${a.kind}`} aria-label={`Apply ${label}`}>
                   Apply

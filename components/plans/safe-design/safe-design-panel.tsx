@@ -21,6 +21,7 @@ import { AlternativesTable, type AlternativeRow } from "./alternatives-table";
 import { BlockingRuns } from "./blocking-runs";
 import { factorUnits } from "./format";
 import { useSafeDesign } from "./use-safe-design";
+import { SAFETY_NOTICE } from "@/components/shell/safety-notice";
 
 export interface SafeDesignPanelProps {
   labSlug: string;
@@ -71,7 +72,7 @@ export function SafeDesignPanel({ labSlug, document, status, stale, onApply }: S
     <section className="flex flex-col gap-3 rounded-lg border border-blocks/40 bg-paper-card p-4" data-testid="safe-design-panel" aria-label="Safe design">
       <div>
         <h2 className="text-base font-semibold text-blocks">
-          Safe design: <span className="num">{n}</span> of <span className="num">{report.runCount}</span> runs block
+          Safe design: <span className="num">{n}</span> {n === 1 ? "run" : "runs"} of <span className="num">{report.runCount}</span> {n === 1 ? "blocks" : "block"}
         </h2>
         <p className="text-xs text-ink-soft">
           These runs trip a blocking caution or leave the lab&apos;s limits (block range, stock solubility, vial volume). The alternatives below are checked by the same hazard engine
@@ -87,6 +88,9 @@ export function SafeDesignPanel({ labSlug, document, status, stale, onApply }: S
           <AlternativesTable rows={rows} originalRuns={report.runCount} onApply={apply} />
         </>
       )}
+      <p className="text-xs text-ink-soft" data-testid="safe-design-notice">
+        {SAFETY_NOTICE}
+      </p>
     </section>
   );
 }

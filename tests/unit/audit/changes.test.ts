@@ -83,6 +83,33 @@ describe("auditChanges", () => {
     expect(formatValue({ status: "held", amountBase: "5", dimension: "mass" })).toBe("status: held; amount: 5 µg");
   });
 
+  it("compares nested records and lists of records inside: one line per changed leaf, lists counted from 1", () => {
+    // The shape of a lab settings entry (lib/lab-settings/server/update-lab-settings.ts) and of a plan
+    // document's factors (docs/studies-and-plans.md); the expected lines written by hand.
+    const blocks = (source: string, maxC: number) => ({
+      section: "blocks",
+      version: 3,
+      value: {
+        defaultId: "kb-al-24",
+        types: [
+          { id: "kb-al-24", name: "Aluminium heating block", positions: 24, mode: "heating", minC: 20, maxC, source },
+          { id: "kb-cool-24", name: "Cooling block", positions: 24, mode: "cooling", minC: -78, maxC: 25, source: "dry ice" },
+        ],
+      },
+    });
+    expect(auditChanges(blocks("common practice", 150), { ...blocks("calibrated probe", 140), version: 4 })).toEqual([
+      { field: "value.types.0.maxC", label: "value › types 1 › highest temperature", before: "150 °C", after: "140 °C" },
+      { field: "value.types.0.source", label: "value › types 1 › source", before: "common practice", after: "calibrated probe" },
+    ]);
+    // A list of plain values is shown whole, changed in place or grown.
+    const doc = (high: number, ghs: string[]) => ({ document: { factors: [{ name: "temperature", low: 85, high }], hazards: { ghs } } });
+    expect(auditChanges(doc(115, ["H225", "H319"]), doc(112.65, ["H225", "H318"]))).toEqual([
+      { field: "document.factors.0.high", label: "document › factors 1 › high", before: "115", after: "112.65" },
+      { field: "document.hazards.ghs", label: "document › hazards › ghs", before: "H225, H319", after: "H225, H318" },
+    ]);
+    expect(auditChanges(doc(115, ["H225"]), doc(115, ["H225", "H319"]))).toEqual([{ field: "document.hazards.ghs", label: "document › hazards › ghs", before: "H225", after: "H225, H319" }]);
+  });
+
   it("labels fields for people", () => {
     expect(fieldLabel("purityPercent")).toBe("purity");
     expect(fieldLabel("peroxideTestedOn")).toBe("peroxide tested on");

@@ -264,7 +264,7 @@ function randomThf(rng: () => number): Doc {
   return d;
 }
 
-describe("property: an applied alternative that says nothing blocks has no run the full pipeline finds blocking", () => {
+describe("property: an applied alternative that says nothing blocks has no run the full pipeline finds blocking (and one that still blocks names every such run)", () => {
   // A few seconds alone (the D-optimal searches dominate); allow for a loaded machine.
   it("over 36 random plans (Suzuki-type and THF-type, random boxes and designs)", { timeout: 240_000 }, () => {
     const rng = seedrandom("tareline-safe-design-1");
@@ -289,7 +289,13 @@ describe("property: an applied alternative that says nothing blocks has no run t
       if (r.blockingRuns.length === 0) continue;
       withBlocking++;
       for (const a of r.alternatives) {
-        if (!a.nothingBlocks) continue;
+        if (!a.available) continue;
+        if (!a.nothingBlocks) {
+          // One that says it still blocks names every run the pipeline blocks once it is applied.
+          const still = pipelineBlocking(a.document);
+          if (still.refused === null) expect(still.runs.filter((x) => !a.stillBlocking.includes(x)), `${where} → ${a.kind}: still blocking`).toEqual([]);
+          continue;
+        }
         applied++;
         kindsSeen.add(a.kind);
         const after = pipelineBlocking(a.document);
