@@ -59,12 +59,14 @@ export function runCase(c: BenchCase): BenchResult & { notes: string[] } {
 /** A case whose work is asynchronous (e.g. a PDF rendered through a promise): each timed run is awaited. */
 export interface AsyncBenchCase extends Omit<BenchCase, "run"> {
   runAsync: (state: unknown) => Promise<unknown>;
+  /** Builds the inputs asynchronously (e.g. rows in a database), not timed; used instead of `setup`. */
+  setupAsync?: () => Promise<unknown>;
 }
 
 export async function runCaseAsync(c: AsyncBenchCase): Promise<BenchResult & { notes: string[] }> {
   const repeat = c.repeat ?? 15;
   const warmup = c.warmup ?? 3;
-  const state = c.setup ? c.setup() : undefined;
+  const state = c.setupAsync ? await c.setupAsync() : c.setup ? c.setup() : undefined;
   for (let i = 0; i < warmup; i++) await c.runAsync(state);
   const times: number[] = [];
   for (let i = 0; i < repeat; i++) {

@@ -37,6 +37,7 @@ export const SETTINGS_NAV: NavMenu = {
 export const LAB_NAV: readonly NavEntry[] = [
   { label: "Overview", path: "", permission: "lab.read" },
   { label: "Studies", path: "/studies", permission: "studies.read" },
+  { label: "Review", path: "/review", permission: "plans.review" },
   {
     label: "Inventory",
     items: [

@@ -18,6 +18,7 @@ import { StockLedgerEntry } from "./stock-ledger-entry";
 import { ApiToken } from "./api-token";
 import { Study } from "./study";
 import { Plan } from "./plan";
+import { PlanSignature } from "./plan-signature";
 import { DemoStep } from "./demo-step";
 import { PlanResult } from "./plan-result";
 import { AnalysisExclusion } from "./analysis-exclusion";
@@ -25,7 +26,7 @@ import { AnalysisExclusion } from "./analysis-exclusion";
 export { Lab, User, Membership, AuditEntry, SignInAttempt, Invitation };
 export { Location, Chemical, SafetyDataSheet, Container, Reservation, StockLedgerEntry };
 export { ApiToken };
-export { Study, Plan };
+export { Study, Plan, PlanSignature };
 export { DemoStep };
 export { PlanResult, AnalysisExclusion };
 
@@ -45,6 +46,7 @@ export function initModels(sequelize: Sequelize): void {
   ApiToken.initModel(sequelize);
   Study.initModel(sequelize);
   Plan.initModel(sequelize);
+  PlanSignature.initModel(sequelize);
   DemoStep.initModel(sequelize);
   PlanResult.initModel(sequelize);
   AnalysisExclusion.initModel(sequelize);
@@ -63,6 +65,8 @@ export function initModels(sequelize: Sequelize): void {
   Plan.belongsTo(User, { foreignKey: "authorId", as: "author" });
   Plan.belongsTo(Study, { foreignKey: "studyId", as: "study" });
   Study.hasMany(Plan, { foreignKey: "studyId", as: "plans" });
+  PlanSignature.belongsTo(Plan, { foreignKey: "planId", as: "plan" });
+  Reservation.belongsTo(Plan, { foreignKey: "planId", as: "plan" });
   PlanResult.belongsTo(User, { foreignKey: "enteredBy", as: "enteredByUser" });
   AnalysisExclusion.belongsTo(User, { foreignKey: "excludedBy", as: "excludedByUser" });
 }

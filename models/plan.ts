@@ -22,6 +22,10 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare authorId: string;
   declare derivedFromPlanId: string | null;
   declare derivation: PlanDerivation | null;
+  /** The signature that applies to the content now (plan_signatures); any edit of the content clears it. */
+  declare signatureId: CreationOptional<string | null>;
+  /** When the plan was last submitted for review. */
+  declare submittedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare author?: NonAttribute<User>;
@@ -42,6 +46,8 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
         authorId: { type: DataTypes.UUID, allowNull: false },
         derivedFromPlanId: { type: DataTypes.UUID, allowNull: true },
         derivation: { type: DataTypes.STRING(20), allowNull: true },
+        signatureId: { type: DataTypes.UUID, allowNull: true },
+        submittedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

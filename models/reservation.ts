@@ -4,15 +4,16 @@ import type { Container } from "./container";
 export type ReservationStatus = "held" | "consumed" | "released";
 
 /**
- * An amount of one container held for a plan. `planRef` is the plan's id as plain text
- * until the plans table exists (its migration adds the foreign key). Amounts in the
- * container's base units (BIGINT, read as strings).
+ * An amount of one container held for a plan. `planId` is the plan a release reserved it
+ * for (foreign key, same lab; null for a reservation made by hand); `planRef` is the plan
+ * as readable text. Amounts in the container's base units (BIGINT, read as strings).
  */
 export class Reservation extends Model<InferAttributes<Reservation>, InferCreationAttributes<Reservation>> {
   declare id: CreationOptional<string>;
   declare labId: string;
   declare containerId: string;
   declare planRef: string;
+  declare planId: CreationOptional<string | null>;
   declare amountBase: string;
   declare consumedBase: string | null;
   declare status: CreationOptional<ReservationStatus>;
@@ -31,6 +32,7 @@ export class Reservation extends Model<InferAttributes<Reservation>, InferCreati
         labId: { type: DataTypes.UUID, allowNull: false },
         containerId: { type: DataTypes.UUID, allowNull: false },
         planRef: { type: DataTypes.STRING(100), allowNull: false },
+        planId: { type: DataTypes.UUID, allowNull: true },
         amountBase: { type: DataTypes.BIGINT, allowNull: false },
         consumedBase: { type: DataTypes.BIGINT, allowNull: true },
         status: { type: DataTypes.ENUM("held", "consumed", "released"), allowNull: false, defaultValue: "held" },

@@ -124,14 +124,10 @@ try {
     record(project, j.numPassedTests, failed, j.numPendingTests + (j.numTodoTests ?? 0));
   };
   try {
-    if (suites.includes("unit")) {
-      ensurePoppler(); // the report tests read their PDFs with pdftotext and render them with pdftoppm
-      vitest("unit", baseEnv);
-    }
-    if (suites.includes("integration")) {
-      ensurePoppler(); // the analysis report's route test reads its PDF with pdftotext
-      vitest("integration", env);
-    }
+    // The report tests (unit), the sheet routes (integration) and the release flow (e2e) read PDFs with pdftotext and render them with pdftoppm.
+    if (suites.includes("unit") || suites.includes("integration") || suites.includes("e2e")) ensurePoppler();
+    if (suites.includes("unit")) vitest("unit", baseEnv);
+    if (suites.includes("integration")) vitest("integration", env);
     if (suites.includes("e2e")) await e2e();
   } finally {
     await stopWorker();

@@ -11,6 +11,11 @@
 import type { ReactNode } from "react";
 import type { Role } from "@/lib/auth/roles";
 import type { PlanView } from "@/lib/plans/view";
+import { PlanDownloads } from "./plan-downloads";
+import { PlanReservations } from "./plan-reservations";
+import { PlanStateActions } from "./plan-state-actions";
+import { PlanTimelinePanel } from "./plan-timeline-panel";
+import { SignaturePanel } from "./signature-panel";
 
 export interface PlanAsideProps {
   plan: PlanView;
@@ -26,5 +31,22 @@ export interface PlanAsideEntry {
   Component: (props: PlanAsideProps) => ReactNode | Promise<ReactNode>;
 }
 
-/** The aside's panels (see the module comment). */
-export const PLAN_PAGE_ASIDE: readonly PlanAsideEntry[] = [];
+/** The aside's panels (see the module comment): review and release (issue 11, docs/review-and-release.md). */
+export const PLAN_PAGE_ASIDE: readonly PlanAsideEntry[] = [
+  // A client component: only what it reads crosses to the browser (not the run sheet).
+  {
+    id: "state-actions",
+    Component: ({ plan, labSlug, role, userId }) => (
+      <PlanStateActions
+        labSlug={labSlug}
+        plan={{ id: plan.id, state: plan.state, authorId: plan.authorId, releasable: plan.releasable, signOffRequired: plan.signOffRequired, signature: plan.signature, problem: plan.problem, cautions: plan.cautions }}
+        role={role}
+        userId={userId}
+      />
+    ),
+  },
+  { id: "signature", Component: ({ plan }) => <SignaturePanel plan={plan} /> },
+  { id: "reservations", Component: ({ plan, labSlug }) => <PlanReservations labSlug={labSlug} plan={plan} /> },
+  { id: "downloads", Component: ({ plan, labSlug }) => <PlanDownloads labSlug={labSlug} plan={plan} /> },
+  { id: "timeline", Component: ({ plan, labSlug }) => <PlanTimelinePanel labSlug={labSlug} plan={plan} /> },
+];

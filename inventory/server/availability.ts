@@ -8,11 +8,19 @@ import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
 
 /**
  * Loads what proposeContainers needs for some chemicals of one lab (tenant in every
- * query), plus the chemical records themselves for callers that need more of them.
+ * query), plus the chemical records themselves for callers that need more of them. With
+ * `lock` (inside the caller's transaction), the containers of those chemicals are locked
+ * for update in id order first — the order reserveStock locks in — so what is held is read
+ * after every competing reservation of them has committed or rolled back.
  */
-export async function loadStockFacts(labId: string, chemicalIds: readonly string[], t?: Transaction): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[]; records: Chemical[] }> {
+export async function loadStockFacts(labId: string, chemicalIds: readonly string[], t?: Transaction, lock = false): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[]; records: Chemical[] }> {
   const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: [...chemicalIds] } }, transaction: t });
-  const boxes = await Container.findAll({ where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } }, transaction: t });
+  const boxes = await Container.findAll({
+    where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } },
+    order: [["id", "ASC"]],
+    ...(lock && t ? { lock: t.LOCK.UPDATE } : {}),
+    transaction: t,
+  });
   const held = await heldByContainer(boxes.map((b) => b.id), t);
   return {
     records: chems,
@@ -49,13 +57,14 @@ export async function loadStockFacts(labId: string, chemicalIds: readonly string
  * Availability for a run sheet's requirements in one lab: proposed containers per
  * requirement, shortfalls per chemical and warnings (inventory/availability.ts). Reads
  * only (inside the caller's transaction `t` when given, so a plan's release sees what it
- * is about to reserve); reserve the proposal with reserveStock. Amounts in the result are
- * base-unit strings plus display text.
+ * is about to reserve); reserve the proposal with reserveStock. With `lock` the containers
+ * are locked first (loadStockFacts), so the proposal stays true until the transaction ends.
+ * Amounts in the result are base-unit strings plus display text.
  * @throws AppError invalid_input.
  */
-export async function checkAvailability(opts: { labId: string; input: unknown; today?: string }, t?: Transaction) {
+export async function checkAvailability(opts: { labId: string; input: unknown; today?: string; lock?: boolean }, t?: Transaction) {
   const { requirements } = parseOrThrow(availabilityInputSchema, opts.input);
-  const facts = await loadStockFacts(opts.labId, [...new Set(requirements.map((r) => r.chemicalId))], t);
+  const facts = await loadStockFacts(opts.labId, [...new Set(requirements.map((r) => r.chemicalId))], t, opts.lock ?? false);
   const proposal = proposeContainers({
     requirements: requirements.map((r) => ({ chemicalId: r.chemicalId, amount: r.amount, unit: r.unit, label: r.label ?? undefined })),
     ...facts,

@@ -85,20 +85,22 @@ export async function releaseReservation(opts: { labId: string; actorUserId: str
  * its own transaction `t` when a plan is cancelled or released again, so "cancel and
  * release" (or "release the old holds and reserve anew") commits or rolls back as one and
  * a reservation never outlives its plan. Locks the containers in id order, then the
- * reservations (the order reserveStock uses). Returns how many were released (0 when none
- * were held).
+ * reservations (the order reserveStock uses). With `planId`, the reservations tied to that
+ * plan row are released (whatever their text reference). Returns how many were released
+ * (0 when none were held).
  * @throws AppError invalid_input for an empty plan reference or reason.
  */
-export async function releaseReservationsForPlan(opts: { labId: string; actorUserId: string; planRef: string; reason?: string }, t?: Transaction): Promise<{ released: number }> {
+export async function releaseReservationsForPlan(opts: { labId: string; actorUserId: string; planRef: string; planId?: string; reason?: string }, t?: Transaction): Promise<{ released: number }> {
   const planRef = parseOrThrow(planRefSchema, opts.planRef, "The plan reference is not valid.");
   const reason = parseOrThrow(releaseInputSchema, { reason: opts.reason ?? `Plan ${planRef} cancelled` }).reason;
+  const ofPlan = opts.planId ? { planId: opts.planId } : { planRef };
   return inTransaction(t, async (t) => {
-    const open = await Reservation.findAll({ where: { labId: opts.labId, planRef, status: "held" }, transaction: t });
+    const open = await Reservation.findAll({ where: { labId: opts.labId, ...ofPlan, status: "held" }, transaction: t });
     if (open.length === 0) return { released: 0 };
     const containerIds = [...new Set(open.map((r) => r.containerId))].sort();
     const containers = await Container.findAll({ where: { id: { [Op.in]: containerIds }, labId: opts.labId }, order: [["id", "ASC"]], lock: t.LOCK.UPDATE, transaction: t });
     const byId = new Map(containers.map((c) => [c.id, c]));
-    const locked = await Reservation.findAll({ where: { labId: opts.labId, planRef, status: "held", containerId: { [Op.in]: containerIds } }, order: [["id", "ASC"]], lock: t.LOCK.UPDATE, transaction: t });
+    const locked = await Reservation.findAll({ where: { labId: opts.labId, ...ofPlan, status: "held", containerId: { [Op.in]: containerIds } }, order: [["id", "ASC"]], lock: t.LOCK.UPDATE, transaction: t });
     let released = 0;
     for (const r of locked) {
       if (r.status !== "held") continue;

@@ -19,7 +19,7 @@ import { amountView, appendLedger, heldBase } from "./common";
  * @throws AppError invalid_input (bad lines or units), not_found (a container of another
  *   lab or none), conflict (not available, or not enough free).
  */
-export async function reserveStock(opts: { labId: string; actorUserId: string; input: unknown }, t?: Transaction): Promise<ReservationRow[]> {
+export async function reserveStock(opts: { labId: string; actorUserId: string; input: unknown; planId?: string }, t?: Transaction): Promise<ReservationRow[]> {
   const input = parseOrThrow(reserveInputSchema, opts.input);
   const ids = [...new Set(input.lines.map((l) => l.containerId))].sort();
   return inTransaction(t, async (t) => {
@@ -51,7 +51,7 @@ export async function reserveStock(opts: { labId: string; actorUserId: string; i
     const rows: ReservationRow[] = [];
     for (const { c, base } of planned) {
       const r = await Reservation.create(
-        { labId: opts.labId, containerId: c.id, planRef: input.planRef, amountBase: base.toString(), consumedBase: null, status: "held", note: input.note, reservedBy: opts.actorUserId, closedBy: null, closedAt: null },
+        { labId: opts.labId, containerId: c.id, planRef: input.planRef, planId: opts.planId ?? null, amountBase: base.toString(), consumedBase: null, status: "held", note: input.note, reservedBy: opts.actorUserId, closedBy: null, closedAt: null },
         { transaction: t },
       );
       await appendLedger({ labId: opts.labId, containerId: c.id, reservationId: r.id, kind: "reserved", deltaBase: 0n, heldDeltaBase: base, balanceBase: BigInt(c.amountBase), reason: `Reserved for plan ${input.planRef}`, actorUserId: opts.actorUserId }, t);

@@ -84,6 +84,27 @@ export async function authenticate(input: unknown, now: Date = new Date()): Prom
   return { id: user.id, email: user.email, name: user.name, sessionVersion: user.sessionVersion };
 }
 
+/**
+ * Checks the password of a signed-in user who enters it again (the e-signature of a plan
+ * review), under the same lockout as sign-in and counted with it: the attempt is recorded
+ * against the user's e-mail first (in a transaction of its own, so a failure counts even
+ * when the caller's flow stops there), and after LOCKOUT.maxFailures failures in the
+ * window further attempts are refused (rate_limited), for sign-in too.
+ * @throws AppError invalid_input naming `field` (default `password`) when it is wrong,
+ *   rate_limited when locked out, unauthenticated when the user is gone.
+ */
+export async function confirmPassword(opts: { userId: string; password: string; field?: string }, now: Date = new Date()): Promise<void> {
+  const user = await User.findByPk(opts.userId);
+  if (!user) throw new AppError("unauthenticated", "Sign in first.");
+  const attemptId = await admitAttempt(user.email, now);
+  const matches = await bcrypt.compare(opts.password, user.passwordHash ?? (await dummy()));
+  if (!matches || !user.passwordHash) {
+    const field = opts.field ?? "password";
+    throw new AppError("invalid_input", "The password is wrong; enter your own password to sign.", [{ path: field, message: "wrong password" }]);
+  }
+  await SignInAttempt.update({ succeeded: true }, { where: { id: attemptId } });
+}
+
 /** A bcrypt hash at the cost the project uses everywhere. */
 export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, BCRYPT_COST);

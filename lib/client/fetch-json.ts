@@ -1,7 +1,10 @@
 /** Client-side JSON requests that return the app's one error shape instead of throwing. */
 import type { FieldIssue } from "@/lib/errors/app-error";
 
-export type JsonResult<T> = { ok: true; data: T } | { ok: false; status: number; error: { code: string; message: string; issues: FieldIssue[] } };
+export type JsonResult<T> =
+  | { ok: true; data: T }
+  /** `details`: what the error body carries beside `error` (a refused release's `shortfalls`). */
+  | { ok: false; status: number; error: { code: string; message: string; issues: FieldIssue[] }; details?: Record<string, unknown> };
 
 export async function postJson<T = unknown>(url: string, body: unknown, method: "POST" | "PUT" | "PATCH" | "DELETE" = "POST"): Promise<JsonResult<T>> {
   let res: Response;
@@ -12,8 +15,8 @@ export async function postJson<T = unknown>(url: string, body: unknown, method: 
   }
   const json = (await res.json().catch(() => null)) as unknown;
   if (res.ok) return { ok: true, data: json as T };
-  const err = (json as { error?: { code: string; message: string; issues?: FieldIssue[] } } | null)?.error;
-  return { ok: false, status: res.status, error: { code: err?.code ?? "unknown", message: err?.message ?? `The server answered ${res.status}.`, issues: err?.issues ?? [] } };
+  const { error: err, ...details } = (json ?? {}) as { error?: { code: string; message: string; issues?: FieldIssue[] } } & Record<string, unknown>;
+  return { ok: false, status: res.status, error: { code: err?.code ?? "unknown", message: err?.message ?? `The server answered ${res.status}.`, issues: err?.issues ?? [] }, details };
 }
 
 /** SWR's fetcher: throws an Error carrying the server's message. */

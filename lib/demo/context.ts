@@ -13,6 +13,12 @@ export const DEMO_MEMBERS = {
   viewer: "viewer@kestrelbay.example",
 } as const;
 export type DemoMember = keyof typeof DEMO_MEMBERS;
+/**
+ * Every demo account's password (seeders/20261201000100-demo-labs-and-members.cjs hashes it;
+ * README "Demo accounts" tells people): the demo's e-signatures are signed with it, through
+ * the same password check as any reviewer's.
+ */
+export const DEMO_PASSWORD = "tareline-demo";
 
 /**
  * What a demo step works with: the demo lab, the ids of its five members by role, the lab's

@@ -27,12 +27,18 @@ export interface FieldIssue {
 export class AppError extends Error {
   readonly code: ErrorCode;
   readonly issues: FieldIssue[];
+  /**
+   * Fields the error body carries beside `error` (CONTRACT.md: a release refused for
+   * short stock also has `shortfalls`). Plain JSON values; never database text.
+   */
+  readonly details: Readonly<Record<string, unknown>> | undefined;
 
-  constructor(code: ErrorCode, message: string, issues: FieldIssue[] = []) {
+  constructor(code: ErrorCode, message: string, issues: FieldIssue[] = [], details?: Record<string, unknown>) {
     super(message);
     this.name = "AppError";
     this.code = code;
     this.issues = issues;
+    this.details = details;
   }
 
   /** An invalid-input error about one field. */
@@ -64,14 +70,15 @@ export function parseOrThrow<S extends z.ZodType>(schema: S, input: unknown, mes
   return result.data;
 }
 
-/** The JSON shape every API route and the command line use for errors. */
+/** The JSON shape every API route and the command line use for errors (plus an AppError's `details`). */
 export interface ErrorBody {
   error: { code: ErrorCode; message: string; issues: FieldIssue[] };
+  [detail: string]: unknown;
 }
 
 export function errorBody(error: unknown): ErrorBody {
   if (error instanceof AppError) {
-    return { error: { code: error.code, message: error.message, issues: error.issues } };
+    return { ...error.details, error: { code: error.code, message: error.message, issues: error.issues } };
   }
   if (error instanceof z.ZodError) {
     return errorBody(AppError.fromZod(error));

@@ -9,6 +9,7 @@ import type { Block } from "../hazards/thresholds";
 import type { VesselType } from "../hazards/vessels";
 import type { PlanEvaluation } from "./evaluate";
 import type { PlanSummary } from "./schemas";
+import type { ReviewDecision } from "./signature";
 
 /** An e-signature on the plan's content (CONTRACT.md): valid while its hash equals the plan's. */
 export interface PlanSignature {
@@ -17,6 +18,8 @@ export interface PlanSignature {
   meaning: string;
   contentHash: string;
   valid: boolean;
+  /** The decision signed (the meaning says it in words). */
+  decision?: ReviewDecision;
 }
 
 /** A reservation line of the plan (held, consumed or released), filled in by release. */
@@ -26,6 +29,16 @@ export interface PlanReservationLine {
   chemicalId: string;
   status: "held" | "consumed" | "released";
   amount: { base: string; display: string };
+  /** The container's barcode and the chemical's name, for people. */
+  barcode: string;
+  chemicalName: string;
+}
+
+/** What review and release add to a plan: its latest signature, its reservations and when it was submitted. */
+export interface PlanReviewState {
+  signature: PlanSignature | null;
+  reservations: PlanReservationLine[];
+  submittedAt: string | null;
 }
 
 /** The settings the run sheet and cautions were computed with, as stored in the document. */
@@ -41,9 +54,7 @@ export type PlanView = PlanSummary &
   PlanEvaluation & {
     document: PlanDocument;
     computedWith: PlanComputedWith;
-    signature: PlanSignature | null;
-    reservations: PlanReservationLine[];
-  };
+  } & PlanReviewState;
 
 /** The settings a stored document's run sheet and cautions are computed with (they live in the document). */
 export function computedWithOf(document: PlanDocument): PlanComputedWith {
@@ -56,14 +67,18 @@ export function computedWithOf(document: PlanDocument): PlanComputedWith {
   };
 }
 
-/** Puts a plan's stored row and its evaluation together into the GET shape. */
-export function planView(summary: PlanSummary, document: PlanDocument, evaluation: PlanEvaluation): PlanView {
+/**
+ * Puts a plan's stored row and its evaluation together into the GET shape; `review` is
+ * the signature and reservations (lib/plans/server/load-plan-review.ts), none when omitted.
+ */
+export function planView(summary: PlanSummary, document: PlanDocument, evaluation: PlanEvaluation, review?: PlanReviewState): PlanView {
   return {
     ...summary,
     document,
     ...evaluation,
     computedWith: computedWithOf(document),
-    signature: null,
-    reservations: [],
+    signature: review?.signature ?? null,
+    reservations: review?.reservations ?? [],
+    submittedAt: review?.submittedAt ?? null,
   };
 }

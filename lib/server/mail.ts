@@ -37,3 +37,12 @@ export async function deliverMail(message: MailMessage): Promise<void> {
     attachments: message.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, "base64") })),
   });
 }
+
+/**
+ * Throws, as deliverMail would, when SMTP_URL does not answer (connects and greets, then
+ * hangs up). The mail job asks before building a rendered message, so an outage costs no
+ * rendering of attachments (a prep sheet PDF) on every retry.
+ */
+export async function checkMailServer(): Promise<void> {
+  await transporter().verify();
+}

@@ -101,3 +101,38 @@ test("the pages run under the Content-Security-Policy without a violation", asyn
   await collect();
   expect(violations).toEqual([]);
 });
+
+/**
+ * The review pages (issue 11) under the same policy, as the demo safety officer: the queue,
+ * the review page of the demo's plan waiting there (Study B's exchange plan, lib/demo/steps/
+ * 50-review-and-release.ts) with its vial map, and the sign dialog, which checks its fields
+ * with the shared zod schema in the browser (zodResolver; zod runs jitless).
+ */
+test("the review queue, the review page and its sign dialog run under the Content-Security-Policy", async ({ page }) => {
+  const violations: string[] = [];
+  await page.addInitScript(() => {
+    document.addEventListener("securitypolicyviolation", (e) => {
+      (window as unknown as { __csp: string[] }).__csp ??= [];
+      (window as unknown as { __csp: string[] }).__csp.push(`${e.violatedDirective} ${e.blockedURI}`);
+    });
+  });
+  page.on("console", (m) => {
+    if (m.type() === "error" && /Content Security Policy/i.test(m.text())) violations.push(m.text());
+  });
+  const collect = async () => violations.push(...((await page.evaluate(() => (window as unknown as { __csp?: string[] }).__csp ?? [])) as string[]));
+  await signIn(page, DEMO.safety);
+  const queue = await page.goto("/labs/kestrel-bay/review");
+  expect(queue?.status()).toBe(200);
+  expect(queue?.headers()["content-security-policy"]).toContain("frame-ancestors 'none'");
+  await collect();
+  await page.getByTestId("review-queue-row").filter({ hasText: "Study B" }).getByTestId("review-queue-link").click();
+  await expect(page).toHaveURL(/\/labs\/kestrel-bay\/review\/[0-9a-f-]{36}$/);
+  await expect(page.getByRole("region", { name: "Vial map" })).toBeVisible();
+  await collect();
+  await page.getByTestId("open-sign-dialog").click();
+  await page.getByTestId("decision-reject").check();
+  await page.getByTestId("sign-submit").click();
+  await expect(page.getByTestId("error-password")).toBeVisible();
+  await collect();
+  expect(violations).toEqual([]);
+});

@@ -35,6 +35,7 @@ import { acceptInvitationSchema, changePasswordSchema, changeRoleSchema, inviteM
 import { createApiTokenSchema } from "../../lib/api-tokens/schemas";
 import { settingsUpdateSchema } from "../../lib/lab-settings/schemas";
 import { planCreateSchema, planDuplicateSchema, planUpdateSchema } from "../../lib/plans/schemas";
+import { planReviewSchema } from "../../lib/plans/review-schemas";
 import { planPreviewSchema } from "../../lib/plans/preview";
 import { safeDesignRequestSchema } from "../../lib/plans/safe-design";
 import { studyCreateSchema, studyUpdateSchema } from "../../lib/studies/schemas";
@@ -60,6 +61,8 @@ interface RouteSpec {
   params: Record<string, string>;
   /** The route's body cap when it is not the default 1 MB (lib/api/route.ts). */
   maxBytes?: number;
+  /** Who sends the requests when the lab admin's role may not reach the route's checks (default: the lab admin). */
+  as?: "safety";
 }
 
 /** Every exported write handler under app/api, as "METHOD route". */
@@ -227,9 +230,12 @@ async function signIn(request: APIRequestContext, email: string) {
   expect(res.ok()).toBe(true);
 }
 
-test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 4xx names a field, no table changes", async ({ request }) => {
+test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 4xx names a field, no table changes", async ({ request, playwright, baseURL }) => {
   test.setTimeout(240_000);
   await signIn(request, DEMO.admin);
+  // The review route is for safety officers: a second session, so its own checks are reached.
+  const safetyRequest = await playwright.request.newContext({ baseURL });
+  await signIn(safetyRequest, DEMO.safety);
   const chemicals = (await (await request.get(`/api/labs/${LAB}/chemicals`)).json()) as { chemicals: Array<{ id: string; version: number }> };
   const containers = (await (await request.get(`/api/labs/${LAB}/containers?pageSize=5`)).json()) as { rows: Array<{ id: string; version: number }> };
   const members = (await (await request.get(`/api/labs/${LAB}/members`)).json()) as { members: Array<{ id: string; role: string }> };
@@ -272,6 +278,12 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     // The editor's live preview: writes nothing, so a malformed document is only ever refused.
     { route: "labs/[lab]/plans/preview", method: "POST", body: "json", schema: planPreviewSchema, example: () => ({ document: { name: "Fuzz preview" } }), params: { lab: LAB } },
     { route: "labs/[lab]/plans/[planId]/duplicate", method: "POST", body: "json", schema: planDuplicateSchema, example: () => ({ name: "Fuzz copy" }), params: { lab: LAB, planId: randomId } },
+    // Review and release (issue 11): the moves take no body; the review is signed by a safety officer. Random plan ids: only refusals.
+    { route: "labs/[lab]/plans/[planId]/submit", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/[planId]/review", method: "POST", body: "json", schema: planReviewSchema, example: () => ({ decision: "request_changes", comment: "Lower the top temperature.", password: "not-the-password" }), params: { lab: LAB, planId: randomId }, as: "safety" },
+    { route: "labs/[lab]/plans/[planId]/release", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/[planId]/cancel", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
+    { route: "labs/[lab]/plans/[planId]/start", method: "POST", body: "none", params: { lab: LAB, planId: randomId } },
     { route: "labs/[lab]/plans/alternatives", method: "POST", body: "json", schema: safeDesignRequestSchema, example: () => ({ document: { name: "Fuzz plan" }, kinds: ["face-centered"] }), params: { lab: LAB } },
     // Results and analysis (issue 12): a plan id that matches no record, so only refusals are exercised.
     { route: "labs/[lab]/plans/[planId]/results", method: "PUT", body: "json", schema: resultsPutSchema, example: () => ({ runs: [{ run: 1, responses: { yield: 72.1 } }, { run: 2, responses: null, reason: "vial cracked" }] }), params: { lab: LAB, planId: randomId }, maxBytes: RESULTS_BODY_LIMIT },
@@ -298,7 +310,7 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
         const s = generate(spec, r);
         if (!s) continue;
         i++;
-        const res: APIResponse = await request.fetch(url(spec, s.params), { method: spec.method, headers: s.headers, data: s.data, multipart: s.multipart, maxRedirects: 0, failOnStatusCode: false });
+        const res: APIResponse = await (spec.as === "safety" ? safetyRequest : request).fetch(url(spec, s.params), { method: spec.method, headers: s.headers, data: s.data, multipart: s.multipart, maxRedirects: 0, failOnStatusCode: false });
         sent++;
         perRoute.set(`${spec.method} ${spec.route}`, (perRoute.get(`${spec.method} ${spec.route}`) ?? 0) + 1);
         const status = res.status();
@@ -319,5 +331,6 @@ test("fuzz: 1000+ malformed requests across every write route — no 5xx, every 
     expect(await tableCounts(client)).toEqual(before);
   } finally {
     await client.end();
+    await safetyRequest.dispose();
   }
 });

@@ -5,19 +5,24 @@
  * behind and is tried again next time; and the demo's plans are as the scenario describes —
  * the screening and Box–Behnken plans have no blocking caution, Study B needs a safety
  * officer's sign-off and more n-butyllithium than the lab holds, and the CCD plan has
- * blocking axial runs with safe-design alternatives that clear them. Expected values are
+ * blocking axial runs with safe-design alternatives that clear them; and review and release
+ * (step 50): the screen released with its stock held, the Box–Behnken plan approved by the
+ * demo safety officer with a signature bound to its content, Study B's plan in the review
+ * queue. Expected values are
  * worked out by hand from the documents of lib/demo/steps (run counts from REFERENCE.md §6).
  */
-import { randomUUID } from "node:crypto";
+import { createHash, randomUUID } from "node:crypto";
+import canonicalize from "canonicalize";
 import { describe, expect, it } from "vitest";
 import { checkAvailability } from "@/inventory/server/availability";
 import { loadDemoSteps, runDemo } from "@/lib/demo/run";
 import { demoStep } from "@/lib/demo/step";
 import { getPlan } from "@/lib/plans/server/get-plan";
+import { listReviewQueue } from "@/lib/plans/server/list-review-queue";
 import { suggestSafeDesign } from "@/lib/plans/server/suggest-safe-design";
 import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";
 import { createStudy } from "@/lib/studies/server/create-study";
-import { AuditEntry, Chemical, DemoStep, Lab, Plan, Study } from "@/lib/server/models";
+import { AuditEntry, Chemical, DemoStep, Lab, Plan, PlanSignature, Reservation, Study, User } from "@/lib/server/models";
 import { QueryTypes } from "sequelize";
 import { db, SEED } from "../support/integration";
 
@@ -37,7 +42,7 @@ async function snapshot() {
 describe("the demo's steps", () => {
   it("were all applied once by the bootstrap, in the order of their files", async () => {
     const files = (await loadDemoSteps()).map((s) => s.name);
-    expect(files.slice(0, 4)).toEqual(["10-lab-equipment", "20-study-a", "30-study-b", "40-unsafe-ccd"]);
+    expect(files.slice(0, 5)).toEqual(["10-lab-equipment", "20-study-a", "30-study-b", "40-unsafe-ccd", "50-review-and-release"]);
     const applied = (await DemoStep.findAll({ order: [["appliedAt", "ASC"], ["name", "ASC"]] })).map((s) => s.name);
     for (const f of files) expect(applied).toContain(f);
   });
@@ -170,5 +175,52 @@ describe("the demo's lab and plans", () => {
     const report = await suggestSafeDesign({ labId: LAB, input: { document: plan.document, kinds: ["face-centered", "smaller-alpha", "narrower-range"] } });
     expect(report.blockingRuns.map((b) => b.run)).toEqual(blocking[0]!.runs);
     expect(report.alternatives.every((a) => a.nothingBlocks)).toBe(true);
+  });
+});
+
+describe("the demo's review and release (step 50)", () => {
+  const sha256 = (doc: unknown) => createHash("sha256").update(canonicalize(doc)!, "utf8").digest("hex"); // RFC 8785 canonical JSON, by the canonicalize package
+
+  it("Study A's screen is released, holding stock for every component and solvent that names a chemical, tied to the plan", async () => {
+    const r = await records();
+    const screen = await getPlan({ labId: LAB, planId: r["studyA.screen"]! });
+    expect(screen.state).toBe("released");
+    expect(screen.signature).toBeNull(); // no rule asks for sign-off: released without review
+    const named = new Set([...screen.document.recipe.components.map((c) => c.chemicalId), ...screen.document.recipe.solvents.map((x) => x.chemicalId)]);
+    const held = screen.reservations.filter((x) => x.status === "held");
+    expect(held.length).toBeGreaterThanOrEqual(named.size);
+    expect(new Set(held.map((x) => x.chemicalId))).toEqual(named);
+    // Each row carries the plan's foreign key (reservations.plan_id), read without the project's view code.
+    expect(await Reservation.count({ where: { labId: LAB, planId: screen.id, status: "held" } })).toBe(held.length);
+    const released = await AuditEntry.findOne({ where: { entityId: screen.id, action: "plan.released" } });
+    expect(released?.actorUserId).toBe((await User.findOne({ where: { email: "chemist@kestrelbay.example" } }))!.id);
+  });
+
+  it("the Box–Behnken plan is approved by the demo safety officer, the signature bound to its canonical content", async () => {
+    const r = await records();
+    const bb = await getPlan({ labId: LAB, planId: r["studyA.boxBehnken"]! });
+    const officer = (await User.findOne({ where: { email: "safety@kestrelbay.example" } }))!;
+    expect(bb.state).toBe("approved");
+    expect(bb.signOffRequired).toBe(true);
+    expect(bb.signature).toMatchObject({ signerName: officer.name, meaning: "approved for execution as planned", valid: true, decision: "approve" });
+    const stored = await Plan.findByPk(bb.id);
+    expect(bb.signature!.contentHash).toBe(sha256(stored!.document));
+    const row = await PlanSignature.findOne({ where: { planId: bb.id } });
+    expect(row).toMatchObject({ signerId: officer.id, decision: "approve", contentHash: sha256(stored!.document) });
+    // Not released yet: nothing held.
+    expect(bb.reservations).toEqual([]);
+  });
+
+  it("Study B's pyrophoric exchange plan waits in the review queue", async () => {
+    const r = await records();
+    const queue = await listReviewQueue({ labId: LAB });
+    const item = queue.find((q) => q.plan.id === r["studyB.exchange"]);
+    expect(item).toBeDefined();
+    expect(item!.plan.state).toBe("in_review");
+    expect(item!.submittedAt).not.toBeNull();
+    expect(item!.codes).toEqual(expect.arrayContaining(["TL-R01"]));
+    expect(item!.signOffReasons.some((s) => s.startsWith("TL-S02"))).toBe(true);
+    // The approved Box–Behnken plan and the released screen are no longer in it.
+    expect(queue.some((q) => q.plan.id === r["studyA.boxBehnken"] || q.plan.id === r["studyA.screen"])).toBe(false);
   });
 });

@@ -16,6 +16,7 @@ import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { Op } from "sequelize";
 import { AuditEntry, Plan, PlanResult, AnalysisExclusion, Container, Reservation, StockLedgerEntry } from "@/lib/server/models";
 import { reserveStock } from "@/inventory/server/reserve-stock";
+import { releaseReservation } from "@/inventory/server/close-reservation";
 import { SEED } from "../support/integration";
 import { signInAs } from "../support/fake-session";
 import { ctxOf, forcePlanState, req, type Json } from "../support/plan-fixtures";
@@ -224,7 +225,9 @@ describe("stock follows results", () => {
     expect(boxes).toHaveLength(3);
     const amountsBefore = boxes.map((b) => BigInt(b.amountBase));
     // Reserved as release reserves them: held for the plan (inventory/server/reserve-stock.ts).
-    const held = await reserveStock({ labId: SEED.labs.kestrel.id, actorUserId: SEED.users.chemist.id, input: { planRef: planId, lines: boxes.map((b) => ({ containerId: b.id, amount: "10", unit: "mg" })) } });
+    const held = await reserveStock({ labId: SEED.labs.kestrel.id, actorUserId: SEED.users.chemist.id, planId, input: { planRef: "results plan", lines: boxes.map((b) => ({ containerId: b.id, amount: "10", unit: "mg" })) } });
+    // A reservation whose text reference merely names the plan is not the plan's (the foreign key decides): left held.
+    const [other] = await reserveStock({ labId: SEED.labs.kestrel.id, actorUserId: SEED.users.chemist.id, input: { planRef: planId, lines: [{ containerId: boxes[0]!.id, amount: "1", unit: "mg" }] } });
     as(SEED.users.chemist);
     // Not complete yet: consumption is refused at its field, nothing is stored.
     const early = await put(planId, { runs: [{ run: 1, responses: { yield: 50 } }], consumption: [{ reservationId: held[0]!.id, amount: "8", unit: "mg" }] });
@@ -240,6 +243,8 @@ describe("stock follows results", () => {
     expect(after.map((b, i) => amountsBefore[i]! - BigInt(b.amountBase))).toEqual([8500n, 10000n, 0n]);
     const rs = await Reservation.findAll({ where: { id: { [Op.in]: held.map((h) => h.id) } } });
     expect(Object.fromEntries(rs.map((r) => [r.id, [r.status, r.consumedBase]]))).toEqual({ [held[0]!.id]: ["consumed", "8500"], [held[1]!.id]: ["consumed", "10000"], [held[2]!.id]: ["released", null] });
+    expect((await Reservation.findByPk(other!.id))!.status).toBe("held");
+    await releaseReservation({ labId: SEED.labs.kestrel.id, actorUserId: SEED.users.chemist.id, reservationId: other!.id, input: { reason: "test over" } });
     // The ledger balances: per container, the deltas of the plan's lines add up to the change of amount, and nothing is still held.
     for (const [i, b] of boxes.entries()) {
       const lines = await StockLedgerEntry.findAll({ where: { containerId: b.id, reservationId: held[i]!.id } });

@@ -17,7 +17,7 @@ export const mailAttachmentSchema = z.object({
 });
 export type MailAttachment = z.infer<typeof mailAttachmentSchema>;
 
-/** The content of a message: what a renderer returns, and a queued message without its recipient. */
+/** The content of a message: a queued message without its recipient (a renderer's output: renderedContentSchema below). */
 export const mailContentSchema = z.object({
   subject: z.string().min(1).max(300).regex(/^[^\r\n]*$/, "One line"),
   text: z.string().min(1).max(200_000),
@@ -32,6 +32,27 @@ export const mailContentSchema = z.object({
 });
 export type MailContent = z.output<typeof mailContentSchema>;
 export type MailContentInput = z.input<typeof mailContentSchema>;
+
+/**
+ * What a renderer builds in the worker travels in no job, so its attachments may be larger
+ * than inline ones (a 96-vial prep sheet PDF is about 180 KB, its worklist CSV 80 KB): up to
+ * 10 MiB together, under what mail servers commonly accept.
+ */
+export const MAX_RENDERED_ATTACHMENT_BYTES = 10 * 1024 * 1024;
+const renderedAttachmentSchema = mailAttachmentSchema.extend({
+  contentBase64: z.string().max(Math.ceil(MAX_RENDERED_ATTACHMENT_BYTES / 3) * 4).regex(base64, "Base64 content"),
+});
+
+/** The content a registered renderer returns (checked in the worker before sending). */
+export const renderedContentSchema = mailContentSchema.extend({
+  attachments: z
+    .array(renderedAttachmentSchema)
+    .max(10)
+    .default([])
+    .refine((list) => list.reduce((sum, a) => sum + decodedBytes(a.contentBase64), 0) <= MAX_RENDERED_ATTACHMENT_BYTES, {
+      message: `A rendered message's attachments may hold ${MAX_RENDERED_ATTACHMENT_BYTES / 1024 / 1024} MiB together`,
+    }),
+});
 
 export const mailMessageSchema = mailContentSchema.extend({ to: z.email() });
 export type MailMessage = z.output<typeof mailMessageSchema>;

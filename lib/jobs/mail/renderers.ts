@@ -1,4 +1,5 @@
 import { invitationMail } from "@/lib/members/invitation-mail";
+import { planReleasedMail } from "@/lib/plans/release-mail";
 import type { MailRenderer } from "./renderer";
 
 /**
@@ -8,6 +9,7 @@ import type { MailRenderer } from "./renderer";
  */
 export const MAIL_RENDERERS = {
   invitation: invitationMail,
+  "plan-released": planReleasedMail,
 } satisfies Record<string, MailRenderer>;
 
 export type MailRendererName = keyof typeof MAIL_RENDERERS;

@@ -1,8 +1,9 @@
 import "server-only";
 import { z } from "zod";
-import { deliverMail } from "@/lib/server/mail";
+import { checkMailServer, deliverMail } from "@/lib/server/mail";
 import { defineJob } from "../define-job";
-import { mailContentSchema, mailMessageSchema, type MailMessage } from "./message";
+import { mailMessageSchema, renderedContentSchema, type MailMessage } from "./message";
+import type { MailRenderer } from "./renderer";
 import { MAIL_RENDERERS, MAIL_RENDERER_NAMES } from "./renderers";
 
 /** A mail whose content a registered renderer builds in the worker. */
@@ -19,8 +20,11 @@ export const outgoingMailSchema = z.union([mailMessageSchema, renderedMailSchema
 /** The message a queued mail stands for: rendered now when it names a renderer. */
 async function messageOf(mail: z.output<typeof outgoingMailSchema>): Promise<MailMessage> {
   if (!("render" in mail)) return mail;
-  const renderer = MAIL_RENDERERS[mail.render];
-  const content = mailContentSchema.parse(await renderer.render(renderer.input.parse(mail.input)));
+  // Rendering can be costly (PDF attachments): not while the SMTP server is down (the attempt fails as delivery would).
+  await checkMailServer();
+  // Each renderer parses its own input: seen through the common interface, any of them fits.
+  const renderer: MailRenderer = MAIL_RENDERERS[mail.render];
+  const content = renderedContentSchema.parse(await renderer.render(renderer.input.parse(mail.input)));
   return { ...content, to: mail.to };
 }
 

@@ -8,16 +8,19 @@ import { assertVersion } from "@/inventory/server/common";
 import { planName, storedDocument } from "../document";
 import { planUpdateSchema } from "../schemas";
 import { stateAfterEdit } from "../states";
-import { planView, type PlanView } from "../view";
+import type { PlanView } from "../view";
 import { evaluateStoredPlan } from "./evaluate-stored-plan";
-import { findPlan, planAudit, planSummary, randomSeed, refuseInvalid, runCountOf } from "./common";
+import { findPlan, planAudit, randomSeed, refuseInvalid, runCountOf } from "./common";
+import { fullPlanView } from "./load-plan-review";
 
 /**
  * Replaces a plan's document (CONTRACT.md `PUT /plans/{plan}`) when `version` is the
  * current one and the plan's state allows an edit (lib/plans/states.ts `EDITABLE_STATES`:
  * drafts and plans sent back for changes stay as they are; an approved plan returns to
- * draft, and its signature — bound to the old content hash — no longer applies). The
- * document is stored as `createPlan` stores it. A save that changes nothing is not a new
+ * draft, and its signature — bound to the old content hash — no longer applies). Any
+ * change of content clears the plan's current signature (lib/plans/signature.ts): it stays
+ * void even if a later edit brings the signed content back. The document is stored as
+ * `createPlan` stores it. A save that changes nothing is not a new
  * version. Audited with the content hash and version before → after.
  * @throws AppError invalid_input (paths under `document.`; nothing changes), not_found,
  *   conflict (stale `version`, or a state that cannot be edited).
@@ -32,7 +35,7 @@ export async function updatePlan(opts: { labId: string; actorUserId: string; pla
     const stored = await storedDocument(body.document, settings, randomSeed);
     const evaluation = await evaluateStoredPlan({ labId: opts.labId, document: stored.document, refuseUnknownChemicals: true }, tx);
     refuseInvalid(evaluation);
-    if (stored.contentHash === plan.contentHash) return planView(planSummary(plan), plan.document, evaluation);
+    if (stored.contentHash === plan.contentHash) return fullPlanView(plan, evaluation, tx);
 
     const before = planAudit(plan, false);
     plan.document = stored.document;
@@ -41,6 +44,8 @@ export async function updatePlan(opts: { labId: string; actorUserId: string; pla
     plan.runCount = runCountOf(stored.document, evaluation);
     plan.state = next.state;
     plan.version = plan.version + 1;
+    const voided = (plan.signatureId ?? null) !== null || next.voidsSignature;
+    plan.signatureId = null;
     await plan.save({ transaction: tx });
     await audit(
       {
@@ -50,10 +55,10 @@ export async function updatePlan(opts: { labId: string; actorUserId: string; pla
         entityType: "plan",
         entityId: plan.id,
         before,
-        after: { ...planAudit(plan), ...(next.voidsSignature ? { signatureVoided: true } : {}) },
+        after: { ...planAudit(plan), ...(voided ? { signatureVoided: true } : {}) },
       },
       tx,
     );
-    return planView(planSummary(plan), plan.document, evaluation);
+    return fullPlanView(plan, evaluation, tx);
   });
 }

@@ -17,7 +17,8 @@ function plannedAmount(base: string, dimension: "mass" | "volume"): { amount: st
 
 /**
  * Consumes the plan's held reservations once its results are complete (issue 12 "Stock
- * follows results"): each with the amount actually used — the line of `lines` naming it,
+ * follows results"): the held reservations tied to the plan by `reservations.plan_id` (what
+ * release reserved), each with the amount actually used — the line of `lines` naming it,
  * else the planned (reserved) amount — through the inventory's own consume operation in
  * the caller's transaction (the container goes down by that amount, what was reserved but
  * not used is free again, the ledger and the audit log record both); a reservation whose
@@ -31,7 +32,7 @@ export async function consumePlanStock(
   t: Transaction,
 ): Promise<{ consumed: number; released: number }> {
   const held = await Reservation.findAll({
-    where: { labId: opts.labId, planRef: opts.plan.id, status: "held" },
+    where: { labId: opts.labId, planId: opts.plan.id, status: "held" },
     include: [{ model: Container, as: "container", attributes: ["id", "dimension"], required: true, where: { labId: opts.labId } }],
     order: [["containerId", "ASC"], ["id", "ASC"]],
     transaction: t,

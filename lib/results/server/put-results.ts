@@ -2,7 +2,8 @@ import "server-only";
 import type { Transaction } from "sequelize";
 import { AppError, parseOrThrow, type FieldIssue } from "@/lib/errors/app-error";
 import { getPlan } from "@/lib/plans/server/get-plan";
-import { PLAN_STATE_LABELS, RESULTS_STATES, requireMove, type PlanState } from "@/lib/plans/states";
+import { makeMoves } from "@/lib/plans/server/move-plan";
+import { PLAN_STATE_LABELS, RESULTS_STATES, type PlanAction, type PlanState } from "@/lib/plans/states";
 import type { PlanView } from "@/lib/plans/view";
 import { audit } from "@/lib/server/audit";
 import { inTransaction } from "@/lib/server/db";
@@ -110,28 +111,21 @@ export async function putResults(
     // The state moves the results make, through the state table.
     const stored = cellMap([...byKey.values()]);
     const complete = missingCells(stored, runNumbers, p.responses).length === 0;
-    const moves: string[] = [];
-    let state = from;
-    if (state === "released" && stored.size > 0) {
-      state = requireMove(state, "start").to;
-      moves.push("released → running");
-    }
-    if (state === "running" && complete) {
-      state = requireMove(state, "enter_results").to;
-      moves.push("running → results_entered");
-    }
     if (from === "results_entered" && !complete) {
       throw new AppError("conflict", "The plan's results are entered: correct a value or mark it failed rather than removing it.", [{ path: "runs", message: "would leave the plan without a result for every run" }]);
     }
+    const actions: PlanAction[] = [];
+    if (from === "released" && stored.size > 0) actions.push("start");
+    if ((from === "running" || actions.length > 0) && complete) actions.push("enter_results");
+    // Through the one state table and the moves' own rules (lib/plans/server/move-plan.ts): each move's permission, one more version.
+    const made = await makeMoves({ labId: opts.labId, actorUserId: opts.actorUserId, plan, actions }, tx);
+    const moves = made.map((m) => `${m.from} → ${m.to}`);
+    const state: PlanState = plan.state;
     let stock = { consumed: 0, released: 0 };
     if (state === "results_entered" && from !== "results_entered") {
       stock = await consumePlanStock({ labId: opts.labId, actorUserId: opts.actorUserId, plan, lines: body.consumption ?? [] }, tx);
     } else if (body.consumption?.length) {
       throw AppError.field("consumption", "stock is consumed when the results complete the plan; these results do not");
-    }
-    if (state !== from) {
-      plan.state = state;
-      await plan.save({ transaction: tx });
     }
     if (set + cleared > 0 || state !== from) {
       await audit(
@@ -141,8 +135,8 @@ export async function putResults(
           action: from === "results_entered" ? "plan.results_corrected" : "plan.results_entered",
           entityType: "plan",
           entityId: plan.id,
-          before: { state: from, ...before },
-          after: { state, ...after, ...(stock.consumed + stock.released > 0 ? { reservationsConsumed: stock.consumed, reservationsReleased: stock.released } : {}) },
+          before: { state: from, ...(made.length ? { version: plan.version - 1 } : {}), ...before },
+          after: { state, ...(made.length ? { version: plan.version } : {}), ...after, ...(stock.consumed + stock.released > 0 ? { reservationsConsumed: stock.consumed, reservationsReleased: stock.released } : {}) },
         },
         tx,
       );

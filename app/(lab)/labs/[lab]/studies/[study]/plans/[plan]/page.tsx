@@ -135,7 +135,7 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
             <ValuesUsed computedWith={plan.computedWith} settingsHref={`/labs/${labSlug}/settings`} testId="plan-values-used" />
           </Section>
         </div>
-        <aside className="flex flex-col gap-4 xl:sticky xl:top-4 print:hidden" aria-label="Plan actions and review" data-testid="plan-aside">
+        <aside className="flex flex-col gap-4 xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:overflow-y-auto print:hidden" aria-label="Plan actions and review" data-testid="plan-aside">
           <PlanActions labSlug={labSlug} plan={plan} canEdit={can(access.role, "plans.edit")} editable={EDITABLE_STATES[plan.state] !== undefined} deletable={DELETABLE_STATES.includes(plan.state)} />
           {/* The aside slot (components/plans/plan-page-slots.tsx): state actions, signature, timeline, downloads. */}
           {PLAN_PAGE_ASIDE.map(({ id, Component }) => (
