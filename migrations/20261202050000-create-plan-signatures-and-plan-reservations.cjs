@@ -19,7 +19,14 @@ module.exports = {
     const { DataTypes } = Sequelize;
     const q = (sql) => queryInterface.sequelize.query(sql);
 
-    await q("ALTER TABLE plans ADD CONSTRAINT plans_lab_id_unique UNIQUE (lab_id, id)");
+    // The composite key the foreign keys below refer to. The results migration
+    // (20261202060000) adds the same one when missing, and a database that took the results
+    // migration before this one (both landed on the same day, results first) has it already.
+    await q(`DO $$ BEGIN
+      IF NOT EXISTS (SELECT 1 FROM pg_constraint WHERE conname = 'plans_lab_id_unique') THEN
+        ALTER TABLE plans ADD CONSTRAINT plans_lab_id_unique UNIQUE (lab_id, id);
+      END IF;
+    END $$`);
 
     await queryInterface.createTable("plan_signatures", {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: Sequelize.literal("gen_random_uuid()") },
@@ -69,6 +76,11 @@ module.exports = {
     await queryInterface.removeColumn("plans", "submitted_at");
     await queryInterface.removeColumn("plans", "signature_id");
     await queryInterface.dropTable("plan_signatures");
-    await q("ALTER TABLE plans DROP CONSTRAINT plans_lab_id_unique");
+    // Kept while the results tables' foreign keys still refer to it.
+    await q(`DO $$ BEGIN
+      IF NOT EXISTS (SELECT 1 FROM pg_constraint WHERE conname IN ('plan_results_plan_same_lab', 'analysis_exclusions_plan_same_lab')) THEN
+        ALTER TABLE plans DROP CONSTRAINT IF EXISTS plans_lab_id_unique;
+      END IF;
+    END $$`);
   },
 };

@@ -13,6 +13,9 @@ import { DiagnosticPlots } from "./diagnostic-plots";
 import { AnovaTable, CurvatureCheck, FitStats, PruningSteps } from "./fit-summary";
 import { sig, termLabel, withUnit } from "./format";
 import { OptimumPanel } from "./optimum-panel";
+import { ReportLink } from "./surface-report-link";
+import { SurfacePanel } from "./surface-panel";
+import type { SurfaceParams } from "@/lib/hooks/use-surface";
 import { ConfirmationPanel } from "./confirmation-panel";
 import { NextDesignPanel } from "./next-design-panel";
 
@@ -30,7 +33,8 @@ const MODELS = [
  * the analysis route's (the `fit` verb's own functions on the server).
  */
 export function AnalysisClient({ labSlug, source, responses, canExclude, factorUnits, initialModel = "quadratic", planning }: { labSlug: string; source: AnalysisSource; responses: StudyResponse[]; canExclude: boolean; factorUnits: Record<string, string>; initialModel?: AnalysisParams["model"]; /** The next design's panels (confirmation runs, steepest ascent, augmentation): the study, and whether the viewer may create plans. */ planning?: { studyId: string; canPlan: boolean } }) {
-  const [params, setParams] = useState<AnalysisParams>({ response: responses[0]?.name ?? "", model: initialModel, alpha: null, hierarchy: true, transform: "none" });
+  const [params, setParams] = useState<AnalysisParams>({ response: responses[0]?.name ?? "", model: initialModel, alpha: null, hierarchy: true, transform: "none", region: "cube", combine: [] });
+  const [surfaceParams, setSurfaceParams] = useState<SurfaceParams | null>(null);
   const [alphaText, setAlphaText] = useState("0.05");
   const { data, error, isLoading, isValidating, mutate } = useAnalysis(labSlug, source, params);
   const [selected, setSelected] = useState<number | null>(null);
@@ -84,7 +88,7 @@ export function AnalysisClient({ labSlug, source, responses, canExclude, factorU
         <div className="flex flex-wrap items-end gap-4">
           <label className="flex flex-col gap-1 text-sm">
             <span className="text-ink-soft">Response</span>
-            <select className="rounded-md border border-ink-edge bg-paper-card px-2 py-1.5" value={params.response} onChange={(e) => change({ response: e.target.value })} data-testid="response-select">
+            <select className="rounded-md border border-ink-edge bg-paper-card px-2 py-1.5" value={params.response} onChange={(e) => change({ response: e.target.value, combine: (params.combine ?? []).filter((n) => n !== e.target.value) })} data-testid="response-select">
               {responses.map((r) => (
                 <option key={r.name} value={r.name}>
                   {r.name}
@@ -211,7 +215,15 @@ export function AnalysisClient({ labSlug, source, responses, canExclude, factorU
             <AnovaTable a={a} />
             <CurvatureCheck a={a} />
           </section>
-          <OptimumPanel a={a} factorUnits={factorUnits} />
+          <OptimumPanel
+            a={a}
+            factorUnits={factorUnits}
+            responses={responses}
+            choice={{ region: params.region ?? "cube", combine: params.combine ?? [] }}
+            onChoice={(c) => change({ region: c.region, combine: c.combine })}
+          />
+          <SurfacePanel key={`${params.response}|${a.analysis.plans.map((p) => p.id).join(",")}`} labSlug={labSlug} source={source} params={params} optimum={a.optimum} onParams={setSurfaceParams} />
+          <ReportLink labSlug={labSlug} source={source} params={params} surface={surfaceParams} />
           {planning && source.kind === "plan" && <ConfirmationPanel labSlug={labSlug} studyId={planning.studyId} planId={source.planId} a={a} params={params} factorUnits={factorUnits} canPlan={planning.canPlan} />}
           {planning && <NextDesignPanel labSlug={labSlug} studyId={planning.studyId} planId={source.kind === "plan" ? source.planId : null} a={a} factorUnits={factorUnits} canPlan={planning.canPlan} />}
           <section className="flex flex-col gap-2" aria-label="Diagnostics">

@@ -43,6 +43,8 @@ export function ConfirmationPanel({ labSlug, studyId, planId, a, params, factorU
       alpha: params.alpha,
       hierarchy: params.hierarchy,
       transform: params.transform,
+      region: params.region ?? "cube",
+      combine: params.combine ?? [],
       replicates: Number(replicates),
       steps: Object.fromEntries(factors.map((f) => [f, Number(steps[f])])),
     };

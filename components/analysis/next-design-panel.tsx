@@ -19,7 +19,7 @@ const ALPHAS = [
 
 /**
  * The next design (issue 13 item 4): from a first-order model, the path of steepest ascent
- * as a short list of proposed conditions stopped at the run envelope; from a two-level
+ * as a short list of proposed conditions stopped at the safe envelope; from a two-level
  * factorial plan, its augmentation to a central composite design (axial and centre runs in a
  * new block, `POST /plans/{plan}/augment`), with what the envelope made α give up. The new
  * plan is analysed with this one on the study analysis page.

@@ -2,8 +2,8 @@
  * The next design after a two-level factorial plan, pure: the axial and centre runs that
  * augment it to a central composite design (lib/doe `augmentToCentralComposite`: α
  * rotatable F^¼, orthogonally blocking, face-centred or a number, cut to the largest α whose
- * axial runs pass the run envelope — lib/plans/run-envelope.ts: no blocking caution, no
- * physical limit left — and the notes that say when rotatability was given up), as a plan
+ * axial runs pass the safe envelope — lib/results/envelope.ts: no blocking caution, none of
+ * the lab's limits left — and the notes that say when rotatability was given up), as a plan
  * document: the source plan's recipe, factors (the same ranges, so the coded values agree
  * with the first plan's), vessel, block and limits, with its design replaced by the new
  * block's runs (`design.runs`, block 2), in a seeded random order grouped by the temperature

@@ -92,8 +92,8 @@ export interface SafeDesignReport {
   note: string | null;
 }
 
-/** The findings at a point that make it blocked: every blocking caution and every limit left (also the check of lib/plans/run-envelope.ts). */
-export function findingsOf(r: PointSafetyResult): SafeDesignFinding[] {
+/** The findings at a point that make it blocked: every blocking caution and every limit left. */
+function findingsOf(r: PointSafetyResult): SafeDesignFinding[] {
   return [...r.blocking.map((f) => ({ ...f, severity: "blocking" as const })), ...r.limits.map((f) => ({ ...f, severity: "limit" as const }))];
 }
 

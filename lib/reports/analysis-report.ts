@@ -35,6 +35,18 @@ export interface AnalysisReportInput {
   /** Design points to overlay on the contour plot (natural values by factor name). */
   designPoints?: ReadonlyArray<Record<string, number>>;
   optimum?: OptimizeOutput | null;
+  /**
+   * The envelope's findings on the grid (lib/results/surface.ts), by the grid's caution
+   * index: blocking cautions and the lab's limits, with a label point each. Without it every
+   * blocked cell is a blocking caution, unlabelled on the plot.
+   */
+  envelopeFindings?: ReadonlyArray<{ code: string; kind: "caution" | "limit"; title: string; message: string; share: number; label: [number, number] | null }> | null;
+  /** The plan whose recipe, vessel and scale the envelope is for. */
+  envelopeOf?: string | null;
+  /** Several responses optimised together: each one's goal and bounds. */
+  desirability?: ReadonlyArray<{ name: string; unit: string | null; goal: string; low: number; high: number; target: number | null; bounds: "study" | "observed" }> | null;
+  /** Why there is no optimum, or a remark on it. */
+  optimumNote?: string | null;
   confirmation?: (ConfirmationPlan & { observed?: number[] | null; verdict?: ConfirmationVerdict | null }) | null;
   issuedAt?: string;
 }
@@ -135,6 +147,7 @@ function contourSection(input: AnalysisReportInput): Content[] {
     points: input.designPoints,
     optimum: input.optimum?.natural ?? null,
     font: "Sans",
+    ...(input.envelopeFindings ? { cautionKinds: input.envelopeFindings.map((f) => f.kind), labels: input.envelopeFindings.filter((f) => f.label).map((f) => ({ at: f.label!, text: f.code, kind: f.kind })) } : {}),
   });
   const held = Object.entries(g.fixed).map(([k, v]) => withUnit(v, unit(k)));
   const legend: Content[] = [
@@ -143,28 +156,56 @@ function contourSection(input: AnalysisReportInput): Content[] {
       style: "small",
     },
   ];
-  if (g.cautions.length > 0) {
+  const findings = input.envelopeFindings ?? g.cautions.map((c) => ({ code: c.code, kind: "caution" as const, title: c.code, message: c.message, share: c.points / (g.xNatural.length * g.yNatural.length), label: null }));
+  const pct = (v: number) => `${significant(v * 100, 3)} % of the plot`;
+  const cautions = findings.filter((f) => f.kind === "caution");
+  const limits = findings.filter((f) => f.kind === "limit");
+  if (cautions.length > 0) {
     legend.push({
-      text: [{ text: "Hatched: a blocking caution fires there — ", bold: true, color: SEVERITY_STYLE.blocking.fg }, g.cautions.map((c) => `${c.code}: ${c.message}`).join("; ")],
+      stack: [
+        { text: "Hatched red: a blocking caution fires there", bold: true, color: SEVERITY_STYLE.blocking.fg },
+        { ul: cautions.map((c) => ({ text: [{ text: `${c.code} `, bold: true }, `${c.title === c.code ? "" : `${c.title} (${pct(c.share)}). `}e.g. ${c.message}`] })) },
+      ],
       style: "small",
-      margin: [0, 2, 0, 0],
+      margin: [0, 3, 0, 0],
     });
-  } else if (g.blocked) {
+  }
+  if (limits.length > 0) {
+    legend.push({
+      stack: [{ text: "Hatched grey the other way, dashed edge: outside the lab's limits", bold: true }, { ul: limits.map((c) => ({ text: [{ text: `${c.code} `, bold: true }, `${c.title} (${pct(c.share)}). e.g. ${c.message}`] })) }],
+      style: "small",
+      margin: [0, 3, 0, 0],
+    });
+  }
+  if (findings.length === 0 && g.blocked) {
     legend.push({ text: "No blocking caution fires anywhere on this grid.", style: "small", margin: [0, 2, 0, 0] });
   }
+  if (g.blocked && input.envelopeOf) legend.push({ text: `The envelope is the hazard engine's verdict at every grid point for the recipe, solvent, vessel and scale of ${input.envelopeOf}.`, style: "small", margin: [0, 2, 0, 0] });
   return [{ stack: [{ text: "Contour plot and safe envelope", style: "h2" }, { svg, width: 500 }, ...legend], unbreakable: true }];
 }
 
 function optimumSection(input: AnalysisReportInput): Content[] {
   const o = input.optimum;
-  if (!o) return [];
+  if (!o) return input.optimumNote ? [{ text: "Optimum", style: "h2" }, { text: input.optimumNote }] : [];
   const unitOf = (name: string) => input.factors.find((f) => f.name === name)?.unit ?? undefined;
   const ru = input.response.unit ?? undefined;
   const rows: Array<[string, string]> = Object.entries(o.natural).map(([k, v]) => [k, withUnit(v, unitOf(k))]);
-  rows.push([`Predicted ${input.response.name}`, withUnit(o.predicted, ru)]);
-  if (o.ci95) rows.push(["95 % confidence interval", `${withUnit(o.ci95[0], ru)} to ${withUnit(o.ci95[1], ru)}`]);
-  if (o.pi95) rows.push(["95 % prediction interval", `${withUnit(o.pi95[0], ru)} to ${withUnit(o.pi95[1], ru)}`]);
-  rows.push(["Region", `${o.region}${o.safety.checked ? ", inside the safe envelope" : ""}`]);
+  if (o.responses && o.responses.length > 0) {
+    for (const r of o.responses) {
+      const u = input.desirability?.find((d) => d.name === r.name)?.unit ?? undefined;
+      rows.push([`Predicted ${r.name}`, `${withUnit(r.predicted, u)}${r.ci95 ? `; 95 % confidence ${withUnit(r.ci95[0], u)} to ${withUnit(r.ci95[1], u)}` : ""}${r.pi95 ? `; 95 % prediction ${withUnit(r.pi95[0], u)} to ${withUnit(r.pi95[1], u)}` : ""}; d = ${fixed(r.desirability, 3)}`]);
+    }
+    if (o.desirability !== null) rows.push(["Overall desirability", fixed(o.desirability, 3)]);
+    for (const d of input.desirability ?? []) {
+      const u = d.unit ?? undefined;
+      rows.push([`Goal of ${d.name}`, `${d.goal === "target" ? `target ${withUnit(d.target ?? NaN, u)}, acceptable ${withUnit(d.low, u)} to ${withUnit(d.high, u)}` : `${d.goal}, scaled from ${withUnit(d.low, u)} to ${withUnit(d.high, u)}`}${d.bounds === "observed" ? " (the lowest and highest result)" : ""}`]);
+    }
+  } else {
+    rows.push([`Predicted ${input.response.name}`, withUnit(o.predicted, ru)]);
+    if (o.ci95) rows.push(["95 % confidence interval", `${withUnit(o.ci95[0], ru)} to ${withUnit(o.ci95[1], ru)}`]);
+    if (o.pi95) rows.push(["95 % prediction interval", `${withUnit(o.pi95[0], ru)} to ${withUnit(o.pi95[1], ru)}`]);
+  }
+  rows.push(["Region", `${o.region === "cube" ? "the cube of the factor ranges" : `the design's sphere (radius ${significant(o.radius ?? NaN, 4)} coded)`}${o.safety.checked ? ", inside the safe envelope and the lab's limits" : ""}`]);
   if (o.onBoundary.length > 0) rows.push(["On the edge of the region", o.onBoundary.join(", ")]);
   const out: Content[] = [
     { text: "Optimum", style: "h2" },
@@ -172,7 +213,7 @@ function optimumSection(input: AnalysisReportInput): Content[] {
   ];
   if (o.safety.blockedWithoutEnvelope.length > 0) {
     out.push({
-      text: `Without the safe envelope the best point would trip ${o.safety.blockedWithoutEnvelope.map((c) => c.code).join(", ")}: the optimum shown is the best safe point.`,
+      text: `Without the safe envelope the best point would trip ${o.safety.blockedWithoutEnvelope.map((c) => c.code).join(", ")}: the optimum shown is the best point inside it.`,
       color: SEVERITY_STYLE.warning.fg,
       margin: [0, 3, 0, 0],
     });
@@ -241,7 +282,7 @@ export function analysisReportDefinition(input: AnalysisReportInput): TDocumentD
   if (fit.curvature) {
     content.push({ text: `Curvature check (centre points against the factorial mean): F = ${fit.curvature.f === null ? "—" : fixed(fit.curvature.f, 2)}, p = ${pval(fit.curvature.p)}.`, margin: [0, 3, 0, 0] });
   }
-  if (fit.canonical) content.push({ text: "Canonical analysis", style: "h2" }, { text: fit.canonical.description });
+  if (fit.canonical) content.push({ text: "Canonical analysis", style: "h2" }, { text: fit.canonical.description.replace(/degC/g, "°C") });
   for (const w of fit.warnings) content.push({ text: `Warning: ${w}`, color: SEVERITY_STYLE.warning.fg, margin: [0, 2, 0, 0] });
   content.push(...contourSection(input), ...optimumSection(input), ...confirmationSection(input));
   content.push({ text: "Diagnostics per run", style: "h2", pageBreak: "before" }, diagnosticsTable(fit));

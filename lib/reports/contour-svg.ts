@@ -2,7 +2,8 @@
  * A contour plot of a response surface as an SVG document, drawn from the grid of
  * lib/surface/grid.ts: contour lines by marching squares (d3-contour, Bostock et al.;
  * the grid's values linearly interpolated), the region where a blocking caution fires
- * hatched and labelled with its caution codes, the extrapolated region (outside the
+ * hatched in brick red and the region outside the lab's limits in graphite, labelled with
+ * their codes where the caller places the labels, the extrapolated region (outside the
  * range of the runs) shaded, the design points and the optimum marked. Axes are even in
  * the grid's coded units (a log-scale factor is labelled in its natural values). Pure.
  */
@@ -25,6 +26,14 @@ export interface ContourOptions {
   points?: ReadonlyArray<Record<string, number>>;
   optimum?: Record<string, number> | null;
   font?: string;
+  /**
+   * The kind of each of the grid's cautions (by index): "limit" cells (a limit of the lab
+   * left, no blocking caution) are hatched in graphite, the rest in brick red. Default: all
+   * cautions.
+   */
+  cautionKinds?: ReadonlyArray<"caution" | "limit">;
+  /** Labels to write inside the regions (natural [x, y] and the text, e.g. a caution's code). */
+  labels?: ReadonlyArray<{ at: [number, number]; text: string; kind: "caution" | "limit" }>;
 }
 
 function esc(s: string): string {
@@ -109,6 +118,7 @@ export function contourSvg(grid: SurfaceGrid, options: ContourOptions = {}): str
   parts.push(
     `<defs><clipPath id="plot"><rect x="${m.left}" y="${m.top}" width="${pw}" height="${ph}"/></clipPath>` +
       `<pattern id="hatch" patternUnits="userSpaceOnUse" width="7" height="7"><rect width="7" height="7" fill="#f4d9d3"/><path d="M-1,1 L1,-1 M0,7 L7,0 M6,8 L8,6" stroke="#9c3324" stroke-width="1.2"/></pattern>` +
+      `<pattern id="limit" patternUnits="userSpaceOnUse" width="7" height="7"><path d="M-1,6 L1,8 M0,0 L7,7 M6,-1 L8,1" stroke="#3d3c40" stroke-width="1"/></pattern>` +
       `<pattern id="extra" patternUnits="userSpaceOnUse" width="5" height="5"><rect width="5" height="5" fill="#ebe3d3"/><circle cx="2.5" cy="2.5" r="0.7" fill="${SHEET_COLORS.faint}"/></pattern></defs>`,
   );
   parts.push(`<rect x="${m.left}" y="${m.top}" width="${pw}" height="${ph}" fill="#ffffff" stroke="${SHEET_COLORS.ink}" stroke-width="0.8"/>`);
@@ -117,10 +127,16 @@ export function contourSvg(grid: SurfaceGrid, options: ContourOptions = {}): str
   const ext = flatten((i, j) => (grid.extrapolated[j]![i] ? 1 : 0));
   if (ext.some((v) => v === 1)) for (const c of contourPaths(ext, nx, ny, [0.5], map)) parts.push(`<path d="${c.d}" fill="url(#extra)" stroke="none"/>`);
   // Unsafe region: hatched, outlined in brick red.
+  // Blocking cautions hatched in brick red; outside the lab's limits hatched the other way, in graphite, dashed.
   if (grid.blocked) {
     const blocked = grid.blocked;
-    const b = flatten((i, j) => (blocked[j]![i]!.length > 0 ? 1 : 0));
+    const kinds = options.cautionKinds ?? [];
+    const isLimit = (k: number) => kinds[k] === "limit";
+    const b = flatten((i, j) => (blocked[j]![i]!.some((k) => !isLimit(k)) ? 1 : 0));
     if (b.some((v) => v === 1)) for (const c of contourPaths(b, nx, ny, [0.5], map)) parts.push(`<path d="${c.d}" fill="url(#hatch)" stroke="#9c3324" stroke-width="1.2"/>`);
+    // On top, lines only: where both apply the hatches cross.
+    const lim = flatten((i, j) => (blocked[j]![i]!.some(isLimit) ? 1 : 0));
+    if (lim.some((v) => v === 1)) for (const c of contourPaths(lim, nx, ny, [0.5], map)) parts.push(`<path d="${c.d}" fill="url(#limit)" stroke="#3d3c40" stroke-width="1.1" stroke-dasharray="4 2"/>`);
   }
   for (const c of lines) {
     parts.push(`<path d="${c.d}" fill="none" stroke="#2b5c9e" stroke-width="0.9"/>`);
@@ -149,6 +165,19 @@ export function contourSvg(grid: SurfaceGrid, options: ContourOptions = {}): str
       const [x, y] = map(i, j);
       parts.push(`<path d="M${x - 6},${y} H${x + 6} M${x},${y - 6} V${y + 6}" stroke="#2f4a6d" stroke-width="2.2"/><circle cx="${x}" cy="${y}" r="4.5" fill="none" stroke="#2f4a6d" stroke-width="1.6"/>`);
     }
+  }
+  for (const l of options.labels ?? []) {
+    const i = indexOf(grid.xNatural, l.at[0]);
+    const j = indexOf(grid.yNatural, l.at[1]);
+    if (i === null || j === null) continue;
+    const [x, y] = map(i, j);
+    const text = esc(l.text);
+    const w = text.length * 4.6 + 6;
+    const colour = l.kind === "limit" ? "#3d3c40" : "#9c3324";
+    parts.push(
+      `<rect x="${(x - w / 2).toFixed(1)}" y="${(y - 7).toFixed(1)}" width="${w.toFixed(1)}" height="10" fill="#ffffff" stroke="${colour}" stroke-width="0.7"/>` +
+        `<text x="${x.toFixed(1)}" y="${(y + 0.6).toFixed(1)}" font-family="${font}" font-size="7.5" font-weight="bold" text-anchor="middle" fill="${colour}">${text}</text>`,
+    );
   }
   parts.push(`</g>`);
   for (const [i, label] of ticks(grid.xNatural, 5)) {

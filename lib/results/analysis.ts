@@ -8,13 +8,14 @@
  * and the terms a chemist may tick.
  */
 import { AppError } from "../errors/app-error";
-import { pointSafety } from "../chemistry/point-safety";
-import type { FittedModel } from "../stats/fitted-model";
 import { buildTerms, type ModelSpec } from "../stats/model-terms";
+import type { FittedModel } from "../stats/fitted-model";
 import { fitResponseSurface, type SurfaceFitOutput } from "../surface/response-surface";
 import { findOptimum, type OptimizeOutput, type OptimumTarget } from "../surface/optimize";
+import { desirabilitySpecSchema, type DesirabilitySpec } from "../surface/desirability";
 import type { StudyResponse } from "../studies/schemas";
 import { analysisIssues, fitInputOf, type AnalysisPlanSource, type AnalysisRunInfo } from "./analysis-input";
+import { safeEnvelope, type SafeEnvelope } from "./envelope";
 import type { NextDesign } from "./next-design";
 import type { AnalysisQuery } from "./schemas";
 
@@ -34,6 +35,22 @@ export interface AnalysisMeta {
   envelopeOf: { id: string; name: string } | null;
   /** Why there is no optimum (or why it ignores the envelope), null when there is nothing to say. */
   optimumNote: string | null;
+  /** Where the optimum was looked for. */
+  region: "cube" | "sphere";
+  /** The responses optimised together through their desirability (with the bounds used), null for one response's own goal. */
+  desirability: DesirabilityUse[] | null;
+}
+
+/** One response in a desirability optimum: its goal and bounds, and where the bounds come from. */
+export interface DesirabilityUse {
+  name: string;
+  unit: string | null;
+  goal: "maximize" | "minimize" | "target";
+  low: number;
+  high: number;
+  target: number | null;
+  /** "study": the study's acceptable bounds; "observed": the lowest and highest result (the study gives none). */
+  bounds: "study" | "observed";
 }
 
 /**
@@ -43,64 +60,82 @@ export interface AnalysisMeta {
  */
 export type AnalysisAnswer = SurfaceFitOutput & { optimum: OptimizeOutput | null; analysis: AnalysisMeta; nextDesign?: NextDesign };
 
+/** A response fitted for an analysis query: the study's response, the fit (output and model) and the runs used. */
+export interface FittedQuery {
+  response: StudyResponse;
+  output: SurfaceFitOutput;
+  model: FittedModel;
+  runs: AnalysisRunInfo[];
+}
+
+/**
+ * Fits `name` (default: the study's first response) over the plans as the query asks.
+ * @throws AppError invalid_input at the query's own parameters (`response`, `model`,
+ *   `transform`) when the fit cannot be made.
+ */
+export function fitQuery(sources: readonly AnalysisPlanSource[], responses: readonly StudyResponse[], query: AnalysisQuery, name: string | undefined = query.response, path = "response"): FittedQuery {
+  if (responses.length === 0) throw AppError.field(path, "the study names no response to analyse");
+  const response = name === undefined ? responses[0]! : responses.find((r) => r.name === name);
+  if (!response) throw AppError.field(path, `${name} is not a response of the study (${responses.map((r) => r.name).join(", ")})`);
+  const { input, runs } = fitInputOf(sources, response.name, query);
+  try {
+    const { output, model } = fitResponseSurface(input);
+    return { response, output, model, runs };
+  } catch (e) {
+    if (e instanceof AppError && e.code === "invalid_input") {
+      const used = runs.filter((r) => r.status === "used").length;
+      const issues = analysisIssues(e.issues, runs).map((i) => (path === "response" ? i : { path, message: `${response.name}: ${i.message}` }));
+      throw new AppError("invalid_input", `${e.message} (${used} of ${runs.length} runs have a ${response.name} result in the analysis)`, issues);
+    }
+    throw e;
+  }
+}
+
+/** The plan whose document bounds the envelope, and that document (inventory facts applied). */
+export type EnvelopeSource = { plan: { id: string; name: string }; document: unknown } | null;
+
+/** The safe envelope of the source, or the note saying why there is none. */
+export function envelopeOf(envelope: EnvelopeSource): { envelope: SafeEnvelope | null; note: string | null } {
+  if (!envelope) return { envelope: null, note: null };
+  try {
+    return { envelope: safeEnvelope(envelope.document), note: null };
+  } catch (e) {
+    if (!(e instanceof AppError)) throw e;
+    return { envelope: null, note: `The safe envelope could not be computed (${e.message}); the optimum below is not checked against it.` };
+  }
+}
+
 /**
  * Analyses `response` over the plans. `envelope` is the plan document (with the
  * inventory's facts applied) whose safe envelope bounds the optimum, with its plan.
  * Example: analyzeSources([source], study.responses, query, { plan, document }).terms
  * @throws AppError invalid_input at the query's own parameters (`response`, `model`,
- *   `transform`) when the fit cannot be made.
+ *   `transform`, `combine`) when the fit cannot be made.
  */
-export function analyzeSources(
-  sources: readonly AnalysisPlanSource[],
-  responses: readonly StudyResponse[],
-  query: AnalysisQuery,
-  envelope: { plan: { id: string; name: string }; document: unknown } | null,
-): AnalysisAnswer {
+export function analyzeSources(sources: readonly AnalysisPlanSource[], responses: readonly StudyResponse[], query: AnalysisQuery, envelope: EnvelopeSource): AnalysisAnswer {
   return analyzeSourcesWithModel(sources, responses, query, envelope).answer;
 }
 
 /**
- * `analyzeSources`, with the fitted model itself (what the confirmation runs and the path of
- * steepest ascent are computed from: lib/results/next-steps.ts).
+ * `analyzeSources`, with the fitted model of the response itself (what the confirmation runs
+ * and the path of steepest ascent are computed from: lib/results/next-design.ts).
  */
-export function analyzeSourcesWithModel(
-  sources: readonly AnalysisPlanSource[],
-  responses: readonly StudyResponse[],
-  query: AnalysisQuery,
-  envelope: { plan: { id: string; name: string }; document: unknown } | null,
-): { answer: AnalysisAnswer; model: FittedModel } {
-  if (responses.length === 0) throw AppError.field("response", "the study names no response to analyse");
-  const response = query.response === undefined ? responses[0]! : responses.find((r) => r.name === query.response);
-  if (!response) throw AppError.field("response", `is not a response of the study (${responses.map((r) => r.name).join(", ")})`);
-  const { input, runs } = fitInputOf(sources, response.name, query);
-  let fitted: ReturnType<typeof fitResponseSurface>;
-  try {
-    fitted = fitResponseSurface(input);
-  } catch (e) {
-    if (e instanceof AppError && e.code === "invalid_input") {
-      const used = runs.filter((r) => r.status === "used").length;
-      throw new AppError("invalid_input", `${e.message} (${used} of ${runs.length} runs have a ${response.name} result in the analysis)`, analysisIssues(e.issues, runs));
-    }
-    throw e;
-  }
-  const { output, model } = fitted;
+export function analyzeSourcesWithModel(sources: readonly AnalysisPlanSource[], responses: readonly StudyResponse[], query: AnalysisQuery, envelope: EnvelopeSource): { answer: AnalysisAnswer; model: FittedModel } {
+  const main = fitQuery(sources, responses, query);
+  const { output, model, runs, response } = main;
+  const others = query.combine.filter((n) => n !== response.name).map((n) => fitQuery(sources, responses, { ...query, transform: "none" }, n, "combine"));
 
   let optimum: OptimizeOutput | null = null;
   let optimumNote: string | null = null;
-  const target = optimumTarget(model, response);
+  let desirability: DesirabilityUse[] | null = null;
+  const target = optimumTarget(main, others);
   if (typeof target === "string") optimumNote = target;
   else {
-    let safety: ReturnType<typeof pointSafety> | undefined;
-    if (envelope) {
-      try {
-        safety = pointSafety(envelope.document);
-      } catch (e) {
-        if (!(e instanceof AppError)) throw e;
-        optimumNote = `The safe envelope could not be computed (${e.message}); the optimum below is not checked against it.`;
-      }
-    }
+    desirability = target.uses;
+    const env = envelopeOf(envelope);
+    optimumNote = env.note;
     try {
-      optimum = findOptimum(target, { region: "cube", ...(safety ? { safety } : {}) });
+      optimum = findOptimum(target.target, { region: query.region, ...(env.envelope ? { safety: env.envelope.check } : {}) });
     } catch (e) {
       if (!(e instanceof AppError) || (e.code !== "infeasible" && e.code !== "invalid_input")) throw e;
       optimumNote = e.message;
@@ -122,17 +157,47 @@ export function analyzeSourcesWithModel(
       candidateTerms: buildTerms("quadratic", names).map((t) => t.name),
       envelopeOf: envelope ? envelope.plan : null,
       optimumNote,
+      region: query.region,
+      desirability,
     },
   };
   return { answer, model };
 }
 
-/** What to optimise for a study response: its goal, or a reason there is none. */
-function optimumTarget(model: ReturnType<typeof fitResponseSurface>["model"], r: StudyResponse): OptimumTarget | string {
-  if (model.terms.length <= 1) return "The model has no factor term left, so there are no best conditions to find.";
-  if (r.goal === "maximize" || r.goal === "minimize") return { kind: "response", model, goal: r.goal, name: r.name, unit: r.unit };
-  if (r.target === undefined || r.low === undefined || r.high === undefined || !(r.low < r.target && r.target < r.high)) {
-    return `The target of ${r.name} must lie strictly inside its acceptable range to find the best conditions.`;
+/**
+ * A study response's desirability (Derringer–Suich) with the study's goal and bounds; a
+ * response to maximise or minimise without both bounds is scaled between its lowest and
+ * highest observed result. A string says why it cannot be valued.
+ */
+function desirabilityOf(f: FittedQuery): { spec: DesirabilitySpec; use: DesirabilityUse } | string {
+  const r = f.response;
+  let low = r.low;
+  let high = r.high;
+  let bounds: DesirabilityUse["bounds"] = "study";
+  if (r.goal === "target") {
+    if (r.target === undefined || low === undefined || high === undefined || !(low < r.target && r.target < high)) return `The target of ${r.name} must lie strictly inside its acceptable range to find the best conditions.`;
+  } else if (low === undefined || high === undefined) {
+    const seen = f.runs.filter((x) => x.status === "used" && x.observed !== null).map((x) => x.observed!);
+    low = Math.min(...seen);
+    high = Math.max(...seen);
+    bounds = "observed";
+    if (!(low < high)) return `Every ${r.name} result is the same, so it cannot be scaled for the desirability.`;
   }
-  return { kind: "desirability", responses: [{ spec: { name: r.name, goal: "target", low: r.low, high: r.high, target: r.target, shape: 1, shapeHigh: 1, weight: 1 }, model, unit: r.unit }] };
+  const spec = desirabilitySpecSchema.parse({ name: r.name, goal: r.goal, low, high, ...(r.goal === "target" ? { target: r.target } : {}) });
+  return { spec, use: { name: r.name, unit: r.unit || null, goal: r.goal, low: low!, high: high!, target: r.goal === "target" ? r.target! : null, bounds } };
+}
+
+/** What to optimise: the response's goal, the desirability of several responses (or of one with a target), or a reason there is none. */
+function optimumTarget(main: FittedQuery, others: readonly FittedQuery[]): { target: OptimumTarget; uses: DesirabilityUse[] | null } | string {
+  const all = [main, ...others];
+  for (const f of all) if (f.model.terms.length <= 1) return `The model of ${f.response.name} has no factor term left, so there are no best conditions to find.`;
+  const r = main.response;
+  if (others.length === 0 && (r.goal === "maximize" || r.goal === "minimize")) return { target: { kind: "response", model: main.model, goal: r.goal, name: r.name, unit: r.unit }, uses: null };
+  const specs = [];
+  for (const f of all) {
+    const d = desirabilityOf(f);
+    if (typeof d === "string") return d;
+    specs.push({ ...d, model: f.model, unit: f.response.unit });
+  }
+  return { target: { kind: "desirability", responses: specs.map((s) => ({ spec: s.spec, model: s.model, unit: s.unit })) }, uses: specs.map((s) => s.use) };
 }

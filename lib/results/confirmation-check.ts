@@ -30,7 +30,7 @@ export interface ConfirmationCheck {
   plan: { id: string; name: string; state: PlanState };
   /** The analysis the runs were planned from, null when unknown. */
   plannedWith: DerivedAnalysis | null;
-  /** The analysis shown is the one the runs were planned from (response, model, pruning, transform). */
+  /** The analysis shown is the one the runs were planned from (response, model, pruning, transform, region, responses combined). */
   sameAnalysis: boolean;
   point: { natural: Record<string, number>; coded: Record<string, number> };
   runs: { run: number; status: "result" | "failed" | "missing"; observed: number | null }[];
@@ -62,7 +62,9 @@ export function confirmationChecks(model: FittedModel, response: string, query: 
       sameModel(plannedWith.model, query.model) &&
       plannedWith.alpha === (query.alpha ?? null) &&
       plannedWith.hierarchy === query.hierarchy &&
-      plannedWith.transform === query.transform;
+      plannedWith.transform === query.transform &&
+      (plannedWith.region ?? "cube") === query.region &&
+      (plannedWith.combine ?? []).join(",") === query.combine.join(",");
     const groups = new Map<string, { natural: Record<string, number>; runs: ConfirmationSource["runs"] }>();
     let missingFactor: string | null = null;
     for (const r of [...s.runs].sort((a, b) => a.run - b.run)) {

@@ -26,6 +26,9 @@ export interface DerivedAnalysis {
   alpha: number | null;
   hierarchy: boolean;
   transform: "none" | "ln";
+  /** Where the optimum was looked for, and the responses optimised with it through their desirability. */
+  region: "cube" | "sphere";
+  combine: string[];
 }
 
 /** What a confirmation plan keeps of its derivation (`plans.derivation_details`). */
@@ -63,7 +66,8 @@ function regionOf(optimum: OptimizeOutput): Region {
 /**
  * Plans the confirmation of `optimum` (the analysis answer's) for a source plan document
  * (its stored form: what the new plan copies). `safety` is the check every run of the new
- * plan must pass (lib/plans/run-envelope.ts on the document with the inventory's facts).
+ * plan must pass (the safe envelope of lib/results/envelope.ts on the document with the
+ * inventory's facts: the envelope the optimum was found in).
  * Example: confirmationOf({ model, optimum, source, analysis, replicates: 3, safety, name }).document.design.runs.length === 3
  * @throws AppError invalid_input at `steps.<factor>` (a step for no factor, a bad step);
  *   infeasible with an issue at `steps.<factor>` for each rounded factor when no settable
@@ -117,7 +121,7 @@ export function confirmationDocument(source: PlanDocument, plan: ConfirmationPla
 
 /** The analysis query as a derived plan records it. */
 export function derivedAnalysis(response: string, query: AnalysisQuery): DerivedAnalysis {
-  return { response, model: query.model, alpha: query.alpha ?? null, hierarchy: query.hierarchy, transform: query.transform };
+  return { response, model: query.model, alpha: query.alpha ?? null, hierarchy: query.hierarchy, transform: query.transform, region: query.region, combine: [...query.combine] };
 }
 
 /** No settable point near the optimum is safe: each rounded factor named, with its step and the optimum's value. */

@@ -4,7 +4,7 @@
  * - `confirmations`: the confirmation plans derived from the plan, each judged against the
  *   model shown (lib/results/confirmation-check.ts);
  * - `steepestAscent`: from a first-order model, the path of steepest ascent stopped at the
- *   run envelope (lib/results/steepest-ascent-path.ts);
+ *   safe envelope (lib/results/steepest-ascent-path.ts);
  * - `settableSteps`: the default settable step of each factor (what the confirmation rounds to);
  * - `augmentation`: whether the plan can be augmented to a central composite design (a
  *   two-level factorial: lib/plans/augmentation.ts), and the augmentations made already.
@@ -45,7 +45,7 @@ export function nextDesignOf(opts: {
   model: FittedModel;
   response: StudyResponse;
   query: AnalysisQuery;
-  /** The run envelope of the plan whose document bounds the analysis (made only when a path is drawn). */
+  /** The safe envelope of the plan whose document bounds the analysis (lib/results/envelope.ts; made only when a path is drawn). */
   safety: (() => SafetyCheck) | null;
   plan: { runs: readonly ResolvedRun[]; confirmations: readonly ConfirmationSource[]; augmentations: readonly DerivedPlanRef[] } | null;
 }): NextDesign {

@@ -114,6 +114,15 @@ export const analysisQuerySchema = z.object({
   alpha: z.coerce.number({ message: "alpha is a number" }).gt(0, "alpha is above 0").lt(1, "alpha is below 1").optional(),
   hierarchy: flag("hierarchy").transform((v) => v ?? true),
   transform: z.enum(["none", "ln"], { message: "transform is none or ln" }).default("none"),
+  /** Where the optimum is looked for: the cube of the factor ranges (default) or the design's sphere. */
+  region: z.enum(["cube", "sphere"], { message: "region is cube or sphere" }).default("cube"),
+  /** Other responses optimised together with `response` through their desirability (the study's goals), comma-separated. */
+  combine: z
+    .string()
+    .max(400)
+    .optional()
+    .transform((v) => [...new Set((v ?? "").split(",").map((s) => s.trim()).filter(Boolean))])
+    .pipe(z.array(responseKey).max(10, "at most 10 responses")),
 });
 export type AnalysisQuery = z.output<typeof analysisQuerySchema>;
 
@@ -126,6 +135,65 @@ export const studyAnalysisQuerySchema = analysisQuerySchema.extend({
 });
 export type StudyAnalysisQuery = z.output<typeof studyAnalysisQuerySchema>;
 
+/** Sliders and axes of a surface: `x`, `y` (factor names), `xRange`/`yRange` ("from,to" in natural units), `hold` ("name:value,…"), `steps`. */
+const numberPair = (name: string) =>
+  z
+    .string()
+    .max(100)
+    .optional()
+    .transform((v, ctx): [number, number] | undefined => {
+      if (v === undefined || v.trim() === "") return undefined;
+      const parts = v.split(",").map((s) => s.trim());
+      const nums = parts.map((s) => (s === "" ? NaN : Number(s)));
+      if (nums.length !== 2 || nums.some((n) => !Number.isFinite(n)) || !(nums[0]! < nums[1]!)) {
+        ctx.addIssue({ code: "custom", message: `${name} is "from,to" in natural units with from < to` });
+        return z.NEVER;
+      }
+      return [nums[0]!, nums[1]!];
+    });
+
+/** The largest surface grid the routes compute (points per axis). */
+export const SURFACE_MAX_STEPS = 151;
+
+const surfaceParams = (defaultSteps: number) => ({
+  x: z.string().max(100).optional(),
+  y: z.string().max(100).optional(),
+  xRange: numberPair("xRange"),
+  yRange: numberPair("yRange"),
+  hold: z
+    .string()
+    .max(2000)
+    .optional()
+    .transform((v, ctx): Record<string, number> => {
+      const out: Record<string, number> = {};
+      for (const part of (v ?? "").split(",").map((s) => s.trim()).filter(Boolean)) {
+        const i = part.lastIndexOf(":");
+        const name = i > 0 ? part.slice(0, i).trim() : "";
+        const raw = i > 0 ? part.slice(i + 1).trim() : "";
+        const value = raw === "" ? NaN : Number(raw);
+        if (!name || !Number.isFinite(value)) {
+          ctx.addIssue({ code: "custom", path: name ? [name] : [], message: `hold is "factor:value,…" with finite numbers (got "${part.slice(0, 60)}")` });
+          continue;
+        }
+        out[name] = value;
+      }
+      return out;
+    }),
+  steps: z.coerce.number({ message: "steps is a number" }).int("steps is a whole number").min(11, "at least 11 points per axis").max(SURFACE_MAX_STEPS, `at most ${SURFACE_MAX_STEPS} points per axis`).default(defaultSteps),
+});
+
+/** `GET /plans/{plan}/analysis/surface?…`: the analysis query plus the surface's axes and sliders. */
+export const surfaceQuerySchema = analysisQuerySchema.extend(surfaceParams(41));
+export type SurfaceQuery = z.output<typeof surfaceQuerySchema>;
+
+/** `GET /studies/{study}/analysis/surface?plans=a,b&…`. */
+export const studySurfaceQuerySchema = studyAnalysisQuerySchema.extend(surfaceParams(41));
+
+/** `GET /plans/{plan}/analysis-report.pdf?…`: the analysis query plus the contour's axes and sliders (defaults: the two strongest factors, the others at the optimum). */
+export const reportQuerySchema = analysisQuerySchema.extend(surfaceParams(61));
+export const studyReportQuerySchema = studyAnalysisQuerySchema.extend(surfaceParams(61));
+export type ReportQuery = z.output<typeof reportQuerySchema>;
+
 /** The analysis a JSON body refers to (the analysis query's parameters; `model` a name, terms comma-separated, or a list of terms). */
 const analysisBodyShape = {
   response: responseKey.optional(),
@@ -136,11 +204,21 @@ const analysisBodyShape = {
   alpha: z.number({ message: "alpha is a number (or null: nothing pruned)" }).gt(0, "alpha is above 0").lt(1, "alpha is below 1").nullable().optional(),
   hierarchy: z.boolean({ message: "hierarchy is true or false" }).default(true),
   transform: z.enum(["none", "ln"], { message: "transform is none or ln" }).default("none"),
+  region: z.enum(["cube", "sphere"], { message: "region is cube or sphere" }).default("cube"),
+  combine: z.array(responseKey, { message: "a list of response names" }).max(10, "at most 10 responses").default([]),
 };
 
 /** The analysis query of a JSON body of `analysisBodyShape`. */
-export function analysisQueryOfBody(v: { response?: string; model: AnalysisQuery["model"]; alpha?: number | null; hierarchy: boolean; transform: "none" | "ln" }): AnalysisQuery {
-  return { ...(v.response !== undefined ? { response: v.response } : {}), model: v.model, ...(typeof v.alpha === "number" ? { alpha: v.alpha } : {}), hierarchy: v.hierarchy, transform: v.transform };
+export function analysisQueryOfBody(v: Omit<AnalysisQuery, "alpha" | "combine"> & { alpha?: number | null; combine: string[] }): AnalysisQuery {
+  return {
+    ...(v.response !== undefined ? { response: v.response } : {}),
+    model: v.model,
+    ...(typeof v.alpha === "number" ? { alpha: v.alpha } : {}),
+    hierarchy: v.hierarchy,
+    transform: v.transform,
+    region: v.region,
+    combine: [...new Set(v.combine)],
+  };
 }
 
 /** The most replicate runs a confirmation plan takes. */

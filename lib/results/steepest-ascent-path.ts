@@ -3,8 +3,8 @@
  * effects, with or without two-factor interactions — the path follows the first-order
  * coefficients, lib/surface `steepestAscent`), a short list of conditions from the design
  * centre in the direction of the study's goal, half a coded unit of the factor with the
- * largest effect per step, stopped where a run could not be made (the run envelope of the
- * plan: a blocking caution or a physical limit, lib/plans/run-envelope.ts). A model with
+ * largest effect per step, stopped where a run could not be made (the safe envelope the optimum
+ * keeps to: a blocking caution or one of the lab's limits, lib/results/envelope.ts). A model with
  * square terms gets no path: its best conditions are the optimum.
  */
 import { AppError } from "../errors/app-error";

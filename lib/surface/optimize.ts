@@ -223,7 +223,7 @@ export function findOptimum(target: OptimumTarget, options: OptimumOptions = {})
       safety.checks++;
       safety.onEnvelopeEdge = beyond.length > 0;
       const codes = (cs: BlockingCaution[]) => cs.map((c) => `${c.code} (${c.message})`).join("; ");
-      warnings.push(`The best conditions of the region would fire a blocking caution: ${codes(blocked0)}. The optimum shown is the best point inside the safe envelope.`);
+      warnings.push(`The best conditions of the region lie outside the safe envelope: ${codes(blocked0)}. The optimum shown is the best point inside it.`);
       if (safety.onEnvelopeEdge) warnings.push(`The optimum sits at the edge of the safe envelope: just beyond it ${codes(beyond)}.`);
     }
     if (blockingAt(check, factors, x).length > 0) throw new AppError("internal", "The optimiser returned a point outside the safe envelope.");

@@ -84,7 +84,14 @@ test("the pages run under the Content-Security-Policy without a violation", asyn
     const res = await page.goto(`/labs/kestrel-bay${path}`);
     expect(res?.status(), path).toBe(200);
     if (path.endsWith("/results")) await expect(page.getByTestId("results-grid")).toBeVisible();
-    else for (const id of ["plot-normal", "plot-residual-fitted", "plot-residual-order", "plot-predicted-actual", "plot-cooks"]) await expect(page.getByTestId(id)).toHaveAttribute("data-drawn", "true");
+    else {
+      for (const id of ["plot-normal", "plot-residual-fitted", "plot-residual-order", "plot-predicted-actual", "plot-cooks"]) await expect(page.getByTestId(id)).toHaveAttribute("data-drawn", "true");
+      // The response surface (issue 13): the contour with its pattern-hatched envelope, then the 3-D surface (Plotly's WebGL bundle).
+      await expect(page.getByTestId("surface-contour")).toHaveAttribute("data-drawn", "true", { timeout: 30_000 });
+      await page.getByTestId("surface-extend").click();
+      await page.getByTestId("surface-toggle-3d").click();
+      await expect(page.getByTestId("surface-3d")).toHaveAttribute("data-drawn", "true", { timeout: 30_000 });
+    }
     await collect();
   }
   }

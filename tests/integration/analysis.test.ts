@@ -7,7 +7,7 @@
  *   in k = 2 with α = 1.414 — the rotatable √2 — and 5 centre points; data in REFERENCE.md §6).
  * - The route's numbers equal the engine's (the `fit` verb, lib/cli/verbs/fit.ts, run
  *   in-process on the same data) and its optimum equals `findOptimum` in the cube with the
- *   plan's `pointSafety` envelope.
+ *   plan's safe envelope (`safeEnvelope`: the hazard engine's `pointSafety` with the lab's limits).
  * - Runs left out (failed, missing, excluded with a reason) are reported with their reason;
  *   two plans analysed together get a block term.
  * Plan states are set by a test fixture (tests/support/plan-fixtures.ts).
@@ -17,7 +17,7 @@ import { readFileSync } from "node:fs";
 import { Matrix, inverse } from "ml-matrix";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { run as fitVerb } from "@/lib/cli/verbs/fit";
-import { pointSafety } from "@/lib/chemistry/point-safety";
+import { safeEnvelope } from "@/lib/results/envelope";
 import { buildTerms, modelRow } from "@/lib/stats";
 import { findOptimum, fitResponseSurface } from "@/lib/surface";
 import { SEED } from "../support/integration";
@@ -166,7 +166,7 @@ describe("analysis of a plan", () => {
     expect((meta as Analysis["analysis"]).runs.every((r) => r.status === "used")).toBe(true);
     expect(body.dropped.length).toBeGreaterThan(0);
     const { model } = fitResponseSurface(input);
-    expect(optimum).toEqual(JSON.parse(JSON.stringify(findOptimum({ kind: "response", model, goal: "maximize", name: "yield", unit: "%" }, { region: "cube", safety: pointSafety(plan.document) }))));
+    expect(optimum).toEqual(JSON.parse(JSON.stringify(findOptimum({ kind: "response", model, goal: "maximize", name: "yield", unit: "%" }, { region: "cube", safety: safeEnvelope(plan.document).check }))));
     expect(body.optimum?.safety.checked).toBe(true);
   });
 

@@ -4,7 +4,7 @@
  *
  * - `POST /plans/{plan}/confirmation`: the confirmation runs sit at the analysis route's
  *   optimum rounded to settable steps (1 °C, 0.05 equiv, 0.1 mol % by default; per factor
- *   when given), inside the run envelope (no blocking caution, no limit left, judged by the
+ *   when given), inside the safe envelope (no blocking caution, no limit left, judged by the
  *   hazard engine's own `pointSafety`); a rounded point past the block's maximum moves to the
  *   nearest settable point inside, and one with no settable point near is refused naming the
  *   factor. The prediction interval for the mean of the replicates is checked against
@@ -20,7 +20,7 @@
  *   The two plans are analysed together with a block term.
  * - The path of steepest ascent of a first-order model (Montgomery §11.2, Example 11.1; from
  *   memory): coded steps proportional to the coefficients, natural steps the coded steps times
- *   the factor half-ranges, stopped at the first point the run envelope refuses.
+ *   the factor half-ranges, stopped at the first point the safe envelope refuses.
  * Plan states are set by a test fixture (tests/support/plan-fixtures.ts).
  */
 import { randomUUID } from "node:crypto";
@@ -149,7 +149,7 @@ describe("the confirmation plan", () => {
     // What it was derived with, and the interval for the mean of 3 runs computed here: ŷ₀ ± t(0.975, 5)·s·√(1/3 + x₀'(X'X)⁻¹x₀).
     const details = res.body.confirmation as { analysis: Json; moved: boolean; predicted: number; meanInterval95: [number, number]; steps: Coded };
     expect(made.derivationDetails).toEqual(JSON.parse(JSON.stringify(details)));
-    expect(details).toMatchObject({ analysis: { response: "yield", model: "quadratic", alpha: null, hierarchy: true, transform: "none" }, moved: false, steps: { temperature: 1, baseEquiv: 0.05, pdLoading: 0.1 } });
+    expect(details).toMatchObject({ analysis: { response: "yield", model: "quadratic", alpha: null, hierarchy: true, transform: "none", region: "cube", combine: [] }, moved: false, steps: { temperature: 1, baseEquiv: 0.05, pdLoading: 0.1 } });
     const row = (c: Coded) => {
       const [x1, x2, x3] = [c.temperature!, c.baseEquiv!, c.pdLoading!];
       return [1, x1, x2, x3, x1 * x1, x2 * x2, x3 * x3, x1 * x2, x1 * x3, x2 * x3];

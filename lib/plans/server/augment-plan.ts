@@ -2,9 +2,9 @@ import "server-only";
 import type { Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { resolveRuns } from "@/lib/chemistry/design-runs";
+import { safeEnvelope } from "@/lib/results/envelope";
 import { inTransaction } from "@/lib/server/db";
 import { augmentationOf, type AugmentationDetails } from "../augmentation";
-import { runEnvelope } from "../run-envelope";
 import { planAugmentSchema } from "../schemas";
 import type { PlanView } from "../view";
 import { createPlan } from "./create-plan";
@@ -18,7 +18,8 @@ const NOT_AUGMENTED = new Set(["rejected", "cancelled"]);
  * The next design after a two-level factorial plan (`POST /plans/{plan}/augment`): its
  * augmentation to a central composite design — axial runs at ±α and centre runs in a new
  * block, α rotatable unless asked otherwise and cut to the largest value whose axial runs
- * pass the run envelope (the document with the inventory's hazard facts applied), the
+ * pass the safe envelope (blocking cautions and the lab's limits, lib/results/envelope.ts, on
+ * the document with the inventory's hazard facts applied), the
  * notes saying what was given up — as a new draft plan of the same study, derived from it
  * (`derivation: "augmentation"`, the α and notes in `derivationDetails`). Analysed with the
  * first through the study analysis (a block per plan). Audited as a created plan.
@@ -47,7 +48,7 @@ export async function augmentPlan(
       runs,
       alpha: v.alpha,
       ...(v.centerPoints !== undefined ? { centerPoints: v.centerPoints } : {}),
-      safety: runEnvelope(linked.document),
+      safety: safeEnvelope(linked.document).check,
       seed: randomSeed(),
       name: v.name ?? `${source.name} — axial and centre runs`,
     });

@@ -1,14 +1,11 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
-import { AppError, parseOrThrow } from "@/lib/errors/app-error";
-import { withInventoryFacts } from "@/lib/plans/server/evaluate-stored-plan";
-import { Plan } from "@/lib/server/models";
-import { findStudy } from "@/lib/studies/server/common";
-import { runEnvelope } from "@/lib/plans/run-envelope";
+import type { Transaction } from "sequelize";
+import { parseOrThrow } from "@/lib/errors/app-error";
 import { analyzeSourcesWithModel, type AnalysisAnswer } from "../analysis";
+import { safeEnvelope } from "../envelope";
 import { nextDesignOf } from "../next-design";
 import { studyAnalysisQuerySchema } from "../schemas";
-import { analysisSource, loadPlanForResults } from "./common";
+import { studyAnalysisSources } from "./read-analysis-sources";
 
 /**
  * Several plans of one study analysed together with a block term (CONTRACT.md
@@ -21,16 +18,8 @@ import { analysisSource, loadPlanForResults } from "./common";
  */
 export async function analyzeStudy(opts: { labId: string; studyId: string; query: unknown }, t?: Transaction): Promise<AnalysisAnswer> {
   const query = parseOrThrow(studyAnalysisQuerySchema, opts.query, "The analysis request is not valid.");
-  const study = await findStudy({ labId: opts.labId, studyId: opts.studyId }, t);
-  const found = await Plan.findAll({ where: { labId: opts.labId, studyId: study.id, id: { [Op.in]: query.plans } }, attributes: ["id"], transaction: t });
-  const missing = query.plans.filter((id) => !found.some((p) => p.id === id));
-  if (missing.length) throw new AppError("invalid_input", "Some plans are not plans of this study.", missing.map((id) => ({ path: "plans", message: `${id} is not a plan of this study` })));
-  const loaded = [];
-  for (const id of query.plans) loaded.push(await loadPlanForResults({ labId: opts.labId, planId: id }, t));
-  const sources = [];
-  for (const p of loaded) sources.push(await analysisSource(p, opts.labId, t));
-  const first = loaded[0]!;
-  const linked = await withInventoryFacts({ labId: opts.labId, document: first.plan.document }, t);
-  const { answer, model } = analyzeSourcesWithModel(sources, study.responses, query, { plan: { id: first.plan.id, name: first.plan.name }, document: linked.document });
-  return { ...answer, nextDesign: nextDesignOf({ model, response: answer.analysis.response, query, safety: () => runEnvelope(linked.document), plan: null }) };
+  const s = await studyAnalysisSources({ labId: opts.labId, studyId: opts.studyId, plans: query.plans }, t);
+  const { answer, model } = analyzeSourcesWithModel(s.sources, s.responses, query, s.envelope);
+  const document = s.envelope?.document;
+  return { ...answer, nextDesign: nextDesignOf({ model, response: answer.analysis.response, query, safety: document === undefined ? null : () => safeEnvelope(document).check, plan: null }) };
 }

@@ -3,21 +3,21 @@ import type { Transaction } from "sequelize";
 import { AppError, parseOrThrow } from "@/lib/errors/app-error";
 import { formatFactorValue } from "@/lib/doe/format";
 import { inTransaction } from "@/lib/server/db";
-import { runEnvelope } from "@/lib/plans/run-envelope";
 import { createPlan } from "@/lib/plans/server/create-plan";
-import { withInventoryFacts } from "@/lib/plans/server/evaluate-stored-plan";
 import type { PlanView } from "@/lib/plans/view";
 import { analyzeSourcesWithModel } from "../analysis";
+import { safeEnvelope } from "../envelope";
 import { confirmationOf, derivedAnalysis, type ConfirmationDetails } from "../confirmation-plan";
 import { analysisQueryOfBody, confirmationRequestSchema } from "../schemas";
-import { analysisSource, loadPlanForResults } from "./common";
+import { planAnalysisSources } from "./read-analysis-sources";
 
 /**
  * The confirmation plan of a plan's analysis (CONTRACT.md `POST /plans/{plan}/confirmation`
  * `{ response, replicates: 3 }`, plus the analysis query's `model`, `alpha`, `hierarchy`,
  * `transform`, settable `steps` per factor and a `name`): the analysis route's optimum for
  * that response and model, rounded to settable values (1 °C, 0.05 equiv, 0.1 mol %, 0.5 h by
- * default) and checked again against the run envelope after rounding (a rounded point that
+ * default) and checked again against the safe envelope after rounding (blocking cautions and the lab's
+ * limits, lib/results/envelope.ts — the envelope the optimum was found in) (a rounded point that
  * leaves it moves to the nearest settable point inside, and the plan says so), as a new draft
  * plan of the same study whose runs are the replicates there — derived from the plan
  * (`derivation: "confirmation"`, the analysis and the prediction in `derivationDetails`), and
@@ -35,9 +35,9 @@ export async function createConfirmationPlan(
   const v = parseOrThrow(confirmationRequestSchema, opts.input, "The confirmation plan is not valid.");
   const query = analysisQueryOfBody(v);
   return inTransaction(t, async (tx) => {
-    const p = await loadPlanForResults({ labId: opts.labId, planId: opts.planId }, tx);
-    const [source, linked] = await Promise.all([analysisSource(p, opts.labId, tx), withInventoryFacts({ labId: opts.labId, document: p.plan.document }, tx)]);
-    const { answer, model } = analyzeSourcesWithModel([source], p.responses, query, { plan: { id: p.plan.id, name: p.plan.name }, document: linked.document });
+    const s = await planAnalysisSources({ labId: opts.labId, planId: opts.planId }, tx);
+    const p = s.plans[0]!;
+    const { answer, model } = analyzeSourcesWithModel(s.sources, s.responses, query, s.envelope);
     if (!answer.optimum) {
       const why = answer.analysis.optimumNote ?? "the analysis found no best conditions";
       throw new AppError("conflict", `There are no best conditions to confirm: ${why}`, [{ path: "response", message: why }]);
@@ -49,7 +49,7 @@ export async function createConfirmationPlan(
       analysis: derivedAnalysis(answer.analysis.response.name, query),
       replicates: v.replicates,
       ...(v.steps ? { steps: v.steps } : {}),
-      safety: runEnvelope(linked.document),
+      safety: safeEnvelope(s.envelope!.document).check,
       name: v.name ?? `Confirmation of ${p.plan.name}`,
     });
     const plan = await createPlan(
