@@ -5,8 +5,8 @@
  * - `POST /plans/{plan}/confirmation`: the confirmation runs sit at the analysis route's
  *   optimum rounded to settable steps (1 °C, 0.05 equiv, 0.1 mol % by default; per factor
  *   when given), inside the safe envelope (no blocking caution, no limit left, judged by the
- *   hazard engine's own `pointSafety`); a rounded point past the block's maximum moves to the
- *   nearest settable point inside, and one with no settable point near is refused naming the
+ *   hazard engine's own `pointSafety`); an optimum on the block's maximum that rounds past it
+ *   moves to the nearest settable point inside, and one with no settable point near is refused naming the
  *   factor. The prediction interval for the mean of the replicates is checked against
  *   ŷ₀ ± t(0.975, df)·s·√(1/m + x₀'(X'X)⁻¹x₀) (Montgomery, Peck & Vining, Introduction to
  *   Linear Regression Analysis, §3.5; from memory) computed in this test with ml-matrix and
@@ -201,15 +201,17 @@ describe("the confirmation plan", () => {
     expect(miss.verdict.observedMean).toBeLessThan(miss.meanInterval95[0]);
   });
 
-  it("a rounded point past the block's maximum moves to the nearest settable point inside; with no settable point near it is refused naming the factor, and nothing is stored", async () => {
-    // The same plan on a block that reaches 93.5 °C: the optimum (about 94.5 °C: the hazard
-    // engine's limit, not a blocking caution) rounds to 94 °C, past it.
-    const hot = await createPlan(threeFactorDocument(`Box–Behnken low block ${tag}`, boxBehnken, { blockMaxC: 93.5, coolingMinC: -78 }));
+  it("an optimum on the block's maximum that rounds past it moves to the nearest settable point inside; with no settable point near it is refused naming the factor, and nothing is stored", async () => {
+    // The same plan on a block that reaches 93.7 °C: the surface's maximum (about 94.5 °C) is
+    // past it, so the optimum sits on the envelope's edge at the block's maximum — and rounds to
+    // 94 °C, past it again.
+    const hot = await createPlan(threeFactorDocument(`Box–Behnken low block ${tag}`, boxBehnken, { blockMaxC: 93.7, coolingMinC: -78 }));
     const runs = [...hot.runSheet.runs].sort((a, b) => a.run - b.run);
     await enterResults(hot.id, runs.map((r, i) => [r.run, surface(r.coded, i)]));
     const { body: a } = await getAnalysis(hot.id, "response=yield&model=quadratic");
     const optimum = (a.optimum as { natural: Coded }).natural;
-    expect(roundTo(optimum.temperature!, 1)).toBeGreaterThan(93.5);
+    expect(optimum.temperature!).toBeLessThanOrEqual(93.7);
+    expect(roundTo(optimum.temperature!, 1)).toBeGreaterThan(93.7);
     const moved = await post(confirmation.POST, hot.id, { response: "yield" });
     expect(moved.status).toBe(201);
     const point = (moved.body.plan as PlanBody).document.design.runs![0]!.natural;
