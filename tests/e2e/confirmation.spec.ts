@@ -84,6 +84,7 @@ test("plan confirmation runs from the analysis page, land on the new plan, and s
   await expect(page.getByTestId("confirmation-verdict")).toContainText("The confirmation holds");
   await expect(page.getByTestId("confirmation-chart")).toBeVisible();
   await page.getByTestId("confirmation-checks").screenshot({ path: testInfo.outputPath("confirmation-verdict.png") });
+  await page.screenshot({ path: testInfo.outputPath("confirmation-analysis-page.png"), fullPage: true });
   expect(violations).toEqual([]);
 });
 
