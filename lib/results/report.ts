@@ -7,7 +7,8 @@
  * lib/reports/analysis-report.ts takes them.
  */
 import type { AnalysisReportInput } from "../reports/analysis-report";
-import { analyzeSources, type AnalysisAnswer, type EnvelopeSource } from "./analysis";
+import { analyzeSources, analyzeSourcesWithModel, type AnalysisAnswer, type EnvelopeSource } from "./analysis";
+import { confirmationChecks, type ConfirmationCheck, type ConfirmationSource } from "./confirmation-check";
 import type { AnalysisPlanSource } from "./analysis-input";
 import type { StudyResponse } from "../studies/schemas";
 import type { SurfaceQuery } from "./schemas";
@@ -65,5 +66,46 @@ export function reportInput(opts: {
     optimumNote: analysis.optimumNote,
     confirmation: opts.confirmation ?? null,
     ...(opts.issuedAt ? { issuedAt: opts.issuedAt } : {}),
+  };
+}
+
+/**
+ * The confirmation a plan's report prints: of the confirmation plans derived from it, judged
+ * against the model of the report's query (lib/results/confirmation-check.ts, as the analysis
+ * page judges them), the latest with a verdict, else the latest; null when there is none or it
+ * cannot be judged against this model (a factor missing).
+ * Example: reportConfirmation({ sources, responses, envelope, query, confirmations })?.verdict?.holds
+ */
+export function reportConfirmation(opts: {
+  sources: readonly AnalysisPlanSource[];
+  responses: readonly StudyResponse[];
+  envelope: EnvelopeSource;
+  query: SurfaceQuery;
+  confirmations: readonly ConfirmationSource[];
+}): ReportConfirmation | null {
+  if (opts.confirmations.length === 0) return null;
+  const { answer, model } = analyzeSourcesWithModel(opts.sources, opts.responses, opts.query, opts.envelope);
+  const checks = confirmationChecks(model, answer.analysis.response.name, opts.query, opts.confirmations);
+  const chosen = checks.filter((c) => c.verdict).at(-1) ?? checks.at(-1);
+  return chosen ? confirmationForReport(chosen) : null;
+}
+
+/** A judged confirmation plan in the shape the report prints (its runs at one settable point). */
+export function confirmationForReport(c: ConfirmationCheck): ReportConfirmation | null {
+  if (c.predicted === null) return null;
+  const observed = c.runs.filter((r) => r.observed !== null).map((r) => r.observed!);
+  return {
+    natural: c.point.natural,
+    coded: c.point.coded,
+    steps: {},
+    moved: false,
+    movedBecause: [],
+    runs: c.runs.map((r, i) => ({ kind: "confirmation", replicate: i + 1, natural: c.point.natural, coded: c.point.coded })),
+    predicted: c.predicted,
+    pi95: c.pi95,
+    mean: { predicted: c.predicted, replicates: c.runs.length, interval95: c.meanInterval95 },
+    warnings: [`Confirmation plan “${c.plan.name}” (${c.plan.state.replace(/_/g, " ")}).`, ...(c.note ? [c.note] : [])],
+    observed,
+    verdict: c.verdict,
   };
 }

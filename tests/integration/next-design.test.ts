@@ -32,6 +32,7 @@ import { Plan } from "@/lib/server/models";
 import { SEED } from "../support/integration";
 import { signInAs } from "../support/fake-session";
 import { ctxOf, forcePlanState, req, type Json } from "../support/plan-fixtures";
+import { flat, pdfText } from "../unit/reports/pdf-tools";
 
 vi.mock("@/lib/auth/session", () => import("../support/fake-session"));
 
@@ -42,6 +43,7 @@ const analysis = await import("@/app/api/labs/[lab]/plans/[planId]/analysis/rout
 const studyAnalysis = await import("@/app/api/labs/[lab]/studies/[studyId]/analysis/route");
 const confirmation = await import("@/app/api/labs/[lab]/plans/[planId]/confirmation/route");
 const augment = await import("@/app/api/labs/[lab]/plans/[planId]/augment/route");
+const report = await import("@/app/api/labs/[lab]/plans/[planId]/analysis-report.pdf/route");
 
 const lab = SEED.labs.kestrel.slug;
 const ctx = ctxOf(lab);
@@ -199,6 +201,14 @@ describe("the confirmation plan", () => {
     const miss = failed.nextDesign.confirmations.find((c) => c.plan.id === made.id)!;
     expect(miss.verdict.holds).toBe(false);
     expect(miss.verdict.observedMean).toBeLessThan(miss.meanInterval95[0]);
+
+    // The source plan's analysis report prints that confirmation: the plan, its observed results and the same verdict.
+    const pdf = await report.GET(req("/x?response=yield&model=quadratic"), ctx({ planId: source.id }));
+    expect(pdf.status).toBe(200);
+    const text = flat(pdfText(Buffer.from(await pdf.arrayBuffer())));
+    expect(text).toContain("Confirmation");
+    expect(text).toContain(`Confirm in 5 °C steps ${tag}`);
+    expect(text).toContain("The confirmation does not hold");
   });
 
   it("an optimum on the block's maximum that rounds past it moves to the nearest settable point inside; with no settable point near it is refused naming the factor, and nothing is stored", async () => {
