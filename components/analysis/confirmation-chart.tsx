@@ -1,3 +1,4 @@
+import { displayUnit } from "@/lib/units/display-unit";
 import type { ConfirmationCheck } from "@/lib/results/confirmation-check";
 import { sig } from "./format";
 
@@ -26,7 +27,7 @@ export function ConfirmationChart({ c, unit }: { c: ConfirmationCheck; unit: str
   const ticks = niceTicks(lo, hi, 5);
   const holds = c.verdict?.holds;
   const meanColor = holds === false ? "fill-blocks" : holds === true ? "fill-ok" : "fill-ink-faint";
-  const u = unit === "degC" ? "°C" : unit;
+  const u = displayUnit(unit);
   return (
     <svg viewBox={`0 0 ${W} ${H}`} className="w-full max-w-xl" role="img" aria-label={`Observed against predicted ${sig(c.predicted)} ${u}`} data-testid="confirmation-chart">
       {c.pi95 && <rect x={x(c.pi95[0])} y={18} width={Math.max(1, x(c.pi95[1]) - x(c.pi95[0]))} height={24} className="fill-accent-light" />}

@@ -1,5 +1,6 @@
 "use client";
 
+import { displayUnit } from "@/lib/units/display-unit";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
@@ -78,7 +79,7 @@ export function ConfirmationPanel({ labSlug, studyId, planId, a, params, factorU
             {factors.map((f) => (
               <label key={f} className="flex flex-col gap-1">
                 <span className="text-ink-soft">
-                  <span className="font-mono text-xs">{f}</span> step{factorUnits[f] ? ` (${factorUnits[f] === "degC" ? "°C" : factorUnits[f]})` : ""}
+                  <span className="font-mono text-xs">{f}</span> step{displayUnit(factorUnits[f]) ? ` (${displayUnit(factorUnits[f])})` : ""}
                 </span>
                 <input
                   className="num w-20 rounded-md border border-ink-edge bg-paper-card px-2 py-1.5"

@@ -1,4 +1,5 @@
 /** Number formatting for the analysis tables (significant digits, p-values, units beside numbers). */
+import { displayUnit } from "@/lib/units/display-unit";
 
 /** A number to `digits` significant digits, without trailing noise; "—" for null. */
 export function sig(v: number | null | undefined, digits = 4): string {
@@ -19,8 +20,8 @@ export function pValue(p: number | null | undefined): string {
 export function withUnit(v: number | null | undefined, unit: string | undefined, digits = 4): string {
   const s = sig(v, digits);
   if (s === "—" || !unit) return s;
-  const u = unit === "degC" ? "°C" : unit;
-  return `${s} ${u}`;
+  const u = displayUnit(unit);
+  return u ? `${s} ${u}` : s;
 }
 
 /** A term's name for people: time^2 → time², a*b → a × b. */

@@ -185,11 +185,11 @@ export function OptimumPanel({ a, factorUnits, responses, choice, onChoice }: { 
         <h3 className="mb-1 text-sm font-semibold">The shape of the surface</h3>
         {a.canonical ? (
           <>
-            <p data-testid="canonical-words">{a.canonical.description.replace(/degC/g, "°C")}</p>
+            <p data-testid="canonical-words">{a.canonical.description}</p>
             <ul className="mt-1 text-xs text-ink-soft">
               {a.canonical.directions.map((x, i) => (
                 <li key={i} className="num">
-                  eigenvalue {sig(x.eigenvalue, 3)}: along {x.words.replace(/degC/g, "°C")}
+                  eigenvalue {sig(x.eigenvalue, 3)}: along {x.words}
                 </li>
               ))}
             </ul>

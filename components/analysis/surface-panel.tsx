@@ -1,5 +1,6 @@
 "use client";
 
+import { displayUnit } from "@/lib/units/display-unit";
 import dynamic from "next/dynamic";
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { AnalysisParams, AnalysisSource } from "@/lib/hooks/use-analysis";
@@ -53,7 +54,7 @@ function RangeBoxes({ axis, f, range, onChange }: { axis: "x" | "y"; f: SurfaceF
       onKeyDown={(e) => e.key === "Enter" && apply()}
     />
   );
-  const unit = f.unit === "degC" ? "°C" : f.unit;
+  const unit = displayUnit(f.unit);
   return (
     <span className="flex items-center gap-1 text-sm">
       {box(0)} to {box(1)} {unit && <span className="text-ink-soft">{unit}</span>}

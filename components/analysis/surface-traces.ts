@@ -6,6 +6,7 @@
  * design points (filled on the slice drawn, hollow off it) and the best conditions — and the
  * 3-D surface with the same regions painted on it. Pure: data in, Plotly objects out.
  */
+import { displayUnit } from "@/lib/units/display-unit";
 import type { Annotations, Data, Layout } from "plotly.js";
 import type { SurfaceAnswer, SurfaceFactor } from "@/lib/results/surface";
 import type { MaskRegion } from "@/lib/surface/regions";
@@ -21,7 +22,7 @@ export const SURFACE_SCALE: Array<[number, string]> = [
 ];
 export const HATCH = { caution: CHART_COLORS.blocks, limit: "#3d3c40", extrapolated: "rgba(98, 94, 87, 0.16)" } as const;
 
-const unitText = (u: string) => (u === "degC" ? "°C" : u);
+const unitText = (u: string) => displayUnit(u);
 export const axisTitle = (f: SurfaceFactor | undefined, name: string) => (f?.unit ? `${name} (${unitText(f.unit)})` : name);
 
 /** A region's rings as one scatter path (rings separated by gaps), for a fill "toself". */

@@ -1,5 +1,6 @@
 "use client";
 
+import { displayUnit } from "@/lib/units/display-unit";
 import { useEffect, useMemo, useRef, useState, type ClipboardEvent, type KeyboardEvent } from "react";
 import { postJson } from "@/lib/client/fetch-json";
 import { useResults } from "@/lib/hooks/use-results";
@@ -296,7 +297,7 @@ export function ResultsGrid({
               {factors.map((f) => (
                 <th key={f.name} className="px-2 py-1.5 text-right font-medium">
                   <span className="font-mono text-xs">{f.name}</span>
-                  <span className="block text-xs font-normal text-ink-faint">{f.unit === "degC" ? "°C" : f.unit}</span>
+                  <span className="block text-xs font-normal text-ink-faint">{displayUnit(f.unit)}</span>
                 </th>
               ))}
               {responses.map((r) => (

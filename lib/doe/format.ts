@@ -1,4 +1,5 @@
 /** Natural factor values in words, for messages: "temperature 85.2 degC, time 3.1 h". */
+import { displayUnit } from "../units/display-unit";
 import { decodeValue, type Factor } from "./factors";
 
 /** A number to 4 significant digits without trailing zeros (−0 as 0). */
@@ -10,7 +11,8 @@ export function formatNumber(v: number): string {
 
 /** One factor's natural value with its unit. */
 export function formatFactorValue(f: Factor, natural: number): string {
-  return `${f.name} ${formatNumber(natural)}${f.unit ? ` ${f.unit}` : ""}`;
+  const unit = displayUnit(f.unit);
+  return `${f.name} ${formatNumber(natural)}${unit ? ` ${unit}` : ""}`;
 }
 
 /** A coded point (factor order) as natural values with units. */

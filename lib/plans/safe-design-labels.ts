@@ -18,10 +18,5 @@ export const ALTERNATIVE_LABELS: Record<AlternativeKind, string> = {
 /** The quick alternatives (well under a second for six factors): every kind but "d-optimal" (a unit test holds this to ALTERNATIVE_KINDS). */
 export const QUICK_ALTERNATIVES: readonly AlternativeKind[] = ["face-centered", "inscribed", "smaller-alpha", "narrower-range"];
 
-const UNIT_LABELS: Record<string, string> = { degC: "°C", degF: "°F", "mol%": "mol %", "vol%": "vol %", fraction: "" };
-
-/** A factor's unit as it is written next to a number ("°C", "mol %"; nothing for a fraction). */
-export function unitLabel(unit: string | undefined): string {
-  if (!unit) return "";
-  return UNIT_LABELS[unit] ?? unit;
-}
+/** A factor's unit as it is written next to a number ("°C", "mol %"; nothing for a fraction): the one table. */
+export { displayUnit as unitLabel } from "../units/display-unit";

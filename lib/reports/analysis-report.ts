@@ -282,7 +282,7 @@ export function analysisReportDefinition(input: AnalysisReportInput): TDocumentD
   if (fit.curvature) {
     content.push({ text: `Curvature check (centre points against the factorial mean): F = ${fit.curvature.f === null ? "—" : fixed(fit.curvature.f, 2)}, p = ${pval(fit.curvature.p)}.`, margin: [0, 3, 0, 0] });
   }
-  if (fit.canonical) content.push({ text: "Canonical analysis", style: "h2" }, { text: fit.canonical.description.replace(/degC/g, "°C") });
+  if (fit.canonical) content.push({ text: "Canonical analysis", style: "h2" }, { text: fit.canonical.description });
   for (const w of fit.warnings) content.push({ text: `Warning: ${w}`, color: SEVERITY_STYLE.warning.fg, margin: [0, 2, 0, 0] });
   content.push(...contourSection(input), ...optimumSection(input), ...confirmationSection(input));
   content.push({ text: "Diagnostics per run", style: "h2", pageBreak: "before" }, diagnosticsTable(fit));

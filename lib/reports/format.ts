@@ -5,21 +5,10 @@
  * font). Pure.
  */
 
-/** Units as printed ("degC" → "°C", "mol%" → "mol %"); unknown units unchanged. */
-const DISPLAY_UNITS: Record<string, string> = {
-  degC: "°C",
-  C: "°C",
-  degF: "°F",
-  "mol%": "mol %",
-  equiv: "equiv",
-  uL: "µL",
-  ul: "µL",
-};
+import { displayUnit } from "../units/display-unit";
 
-export function displayUnit(unit: string | undefined | null): string {
-  if (!unit) return "";
-  return DISPLAY_UNITS[unit] ?? unit;
-}
+/** Units as printed: the one table (lib/units/display-unit.ts). */
+export { displayUnit };
 
 /** A plain number with `decimals` decimals, minus as U+2212. */
 export function fixed(v: number, decimals: number): string {

@@ -12,6 +12,7 @@ import { AppError, type FieldIssue } from "../errors/app-error";
 import type { PlanDocument } from "../chemistry/plan-document";
 import type { SafetyCheck } from "../doe/safe-envelope";
 import { formatFactorValue } from "../doe/format";
+import { displayUnit } from "../units/display-unit";
 import type { FittedModel } from "../stats/fitted-model";
 import type { ModelSpec } from "../stats/model-terms";
 import { planConfirmation, type ConfirmationPlan } from "../surface/confirmation";
@@ -131,7 +132,7 @@ function infeasibleAtSteps(model: FittedModel, optimum: OptimizeOutput, given: R
   for (const f of model.factors) {
     const step = given?.[f.name];
     if (step === 0) continue;
-    issues.push({ path: `steps.${f.name}`, message: `the optimum's ${formatFactorValue(f, optimum.natural[f.name]!)}${step ? ` rounded to steps of ${step}${f.unit ? ` ${f.unit}` : ""}` : ""}: ${why}; a finer step (or 0, not rounded) may keep it inside` });
+    issues.push({ path: `steps.${f.name}`, message: `the optimum's ${formatFactorValue(f, optimum.natural[f.name]!)}${step ? ` rounded to steps of ${step}${displayUnit(f.unit) ? ` ${displayUnit(f.unit)}` : ""}` : ""}: ${why}; a finer step (or 0, not rounded) may keep it inside` });
   }
   return new AppError("infeasible", "No settable point near the optimum is inside the studied region and the safe envelope.", issues.length ? issues : e.issues);
 }

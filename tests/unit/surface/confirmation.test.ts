@@ -41,7 +41,7 @@ describe("the confirmation plan", () => {
     expect(plan.moved).toBe(true);
     expect(plan.movedBecause).toEqual(["vessel.overpressure: above the vial's rating"]);
     expect(plan.runs.every((r) => safety(r.natural).blocking.length === 0)).toBe(true);
-    expect(plan.warnings[0]).toMatch(/nearest settable point inside, time 87 min, temperature 176 degF/);
+    expect(plan.warnings[0]).toMatch(/nearest settable point inside, time 87 min, temperature 176 °F/);
   });
   it("uses the default steps by unit: 1 °C, 0.05 equiv, 0.1 mol %, 0.5 h (PRODUCT.md)", () => {
     const factors = [

@@ -139,7 +139,7 @@ describe("the canonical analysis in words", () => {
     expect(c.kind).toBe("maximum");
     expect(c.ridge).toBeNull();
     expect(c.stationaryInside).toBe(true);
-    expect(c.description).toMatch(/^The fitted surface has a maximum at time 86\.95 min, temperature 176\.5 degF \(inside the studied region\)/);
+    expect(c.description).toMatch(/^The fitted surface has a maximum at time 86\.95 min, temperature 176\.5 °F \(inside the studied region\)/);
     expect(c.directions).toHaveLength(2);
   });
 });
