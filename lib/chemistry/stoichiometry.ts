@@ -16,6 +16,7 @@
 import { AppError } from "../errors/app-error";
 import { impliedHazards } from "../hazards/hazard-flags";
 import { formulaMolarMass } from "./molar-mass";
+import { formatNumber } from "../doe/format";
 import type { Component, PlanDocument } from "./plan-document";
 import { toCanonical } from "./units";
 
@@ -121,7 +122,7 @@ export interface RunProblem {
 /** Records a problem when a factor makes a quantity that must be positive ≤ 0 (or NaN). */
 function requirePositive(problems: RunProblem[], factor: string, v: number, run: number, what: string, component?: string): void {
   if (v > 0) return;
-  problems.push({ key: `nonpositive:${factor}`, component, run, message: `factor "${factor}" gives ${what} ${v} (not positive)` });
+  problems.push({ key: `nonpositive:${factor}`, component, run, message: `factor "${factor}" gives ${what} ${formatNumber(v)} (not positive)` });
 }
 
 /**

@@ -48,7 +48,7 @@ describe("impossible plans", () => {
     const e = errorOf(() => buildRunSheet(plan));
     expect(e.code).toBe("invalid_input");
     expect(e.issues.map((i) => i.path)).toEqual(["design.runs.10.coded.pdLoading"]);
-    expect(e.issues[0]?.message).toMatch(/factor "pdLoading" gives a pd loading \(mol % metal\) of -0.25 \(not positive\)/);
+    expect(e.issues[0]?.message).toMatch(/factor "pdLoading" gives a pd loading \(mol % metal\) of −0.25 \(not positive\)/);
     expect(e.issues[0]?.message).toMatch(/\(run 11\)$/);
   });
 
