@@ -69,7 +69,7 @@ test("open the surface, move a slider, extend the axes and see the safe envelope
   for (let i = 0; i < 30; i++) await page.keyboard.press("ArrowLeft");
   await expect(body).not.toHaveAttribute("data-held", heldBefore!);
   expect(await body.getAttribute("data-held")).toMatch(/^pdLoading:/);
-  await expect(page.getByTestId("surface-hold-value-pdLoading")).toContainText("mol%");
+  await expect(page.getByTestId("surface-hold-value-pdLoading")).toContainText("mol %");
 
   // Extend the axes past the studied range: the envelope appears, hatched and labelled with its cautions.
   await page.getByTestId("surface-extend").click();
