@@ -17,3 +17,17 @@ export async function pageLabAccess(labSlug: string, permission?: Permission) {
     throw e;
   }
 }
+
+/**
+ * A page's read of one record: the record, or Next's 404 page when the lab has no such record
+ * (AppError not_found: another lab's, or none). Other errors pass on.
+ * Example: const { study } = await orNotFound(getStudy({ labId, studyId }));
+ */
+export async function orNotFound<T>(read: Promise<T>): Promise<T> {
+  try {
+    return await read;
+  } catch (e) {
+    if (e instanceof AppError && e.code === "not_found") notFound();
+    throw e;
+  }
+}

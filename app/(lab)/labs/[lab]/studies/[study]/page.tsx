@@ -1,7 +1,5 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/errors/app-error";
-import { pageLabAccess } from "@/lib/auth/page-access";
+import { orNotFound, pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { getStudy } from "@/lib/studies/server/get-study";
 import { RESPONSE_GOAL_LABELS } from "@/lib/studies/schemas";
@@ -15,10 +13,7 @@ export default async function StudyPage({ params }: { params: Promise<{ lab: str
   const { lab: slug, study: studyId } = await params;
   const access = await pageLabAccess(slug, "studies.read");
   const canEditPlans = can(access.role, "plans.edit");
-  const data = await getStudy({ labId: access.lab.id, studyId }).catch((e: unknown) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const data = await orNotFound(getStudy({ labId: access.lab.id, studyId }));
   const { study, plans } = data;
   const base = `/labs/${access.lab.slug}/studies`;
   return (

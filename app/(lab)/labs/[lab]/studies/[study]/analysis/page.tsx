@@ -1,7 +1,5 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/errors/app-error";
-import { pageLabAccess } from "@/lib/auth/page-access";
+import { orNotFound, pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { defaultModel } from "@/lib/results/default-model";
 import { loadPlanForResults } from "@/lib/results/server/common";
@@ -18,10 +16,7 @@ export default async function StudyAnalysisPage({ params, searchParams }: { para
   const { lab: slug, study: studyId } = await params;
   const { plans: picked } = await searchParams;
   const access = await pageLabAccess(slug, "plans.read");
-  const data = await getStudy({ labId: access.lab.id, studyId }).catch((e: unknown) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const data = await orNotFound(getStudy({ labId: access.lab.id, studyId }));
   const plans = data.plans.filter((p) => WITH_RESULTS.has(p.state)).sort((a, b) => a.createdAt.localeCompare(b.createdAt));
   const initial = picked ? picked.split(",").filter(Boolean) : plans.map((p) => p.id);
   const loaded = await Promise.all(plans.filter((p) => initial.includes(p.id)).map((p) => loadPlanForResults({ labId: access.lab.id, planId: p.id })));

@@ -1,8 +1,6 @@
 import { randomInt } from "node:crypto";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { AppError } from "@/lib/errors/app-error";
-import { pageLabAccess } from "@/lib/auth/page-access";
+import { orNotFound, pageLabAccess } from "@/lib/auth/page-access";
 import { solventCatalogue } from "@/lib/hazards/solvents";
 import { getLabSettings } from "@/lib/lab-settings/server/get-lab-settings";
 import { getStudy } from "@/lib/studies/server/get-study";
@@ -15,10 +13,7 @@ export const metadata = { title: "New plan" };
 export default async function NewPlanPage({ params }: { params: Promise<{ lab: string; study: string }> }) {
   const { lab: slug, study: studyId } = await params;
   const access = await pageLabAccess(slug, "plans.edit");
-  const { study } = await getStudy({ labId: access.lab.id, studyId }).catch((e: unknown) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const { study } = await orNotFound(getStudy({ labId: access.lab.id, studyId }));
   if (study.archivedAt) {
     return (
       <div className="flex max-w-2xl flex-col gap-3">

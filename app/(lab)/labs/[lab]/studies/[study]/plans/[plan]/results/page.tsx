@@ -1,7 +1,6 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { AppError } from "@/lib/errors/app-error";
-import { pageLabAccess } from "@/lib/auth/page-access";
+import { orNotFound, pageLabAccess } from "@/lib/auth/page-access";
 import { can } from "@/lib/auth/permissions";
 import { getPlan } from "@/lib/plans/server/get-plan";
 import { getResults } from "@/lib/results/server/get-results";
@@ -16,10 +15,7 @@ export const metadata = { title: "Results" };
 export default async function PlanResultsPage({ params }: { params: Promise<{ lab: string; study: string; plan: string }> }) {
   const { lab: slug, study, plan: planId } = await params;
   const access = await pageLabAccess(slug, "plans.read");
-  const found = await Promise.all([getPlan({ labId: access.lab.id, planId }), getResults({ labId: access.lab.id, planId })]).catch((e: unknown) => {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  });
+  const found = await orNotFound(Promise.all([getPlan({ labId: access.lab.id, planId }), getResults({ labId: access.lab.id, planId })]));
   const [plan, results] = found;
   if (plan.studyId !== study) notFound();
   const base = `/labs/${access.lab.slug}/studies/${study}`;
