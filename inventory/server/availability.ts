@@ -14,13 +14,16 @@ import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
  * after every competing reservation of them has committed or rolled back.
  */
 export async function loadStockFacts(labId: string, chemicalIds: readonly string[], t?: Transaction, lock = false): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[]; records: Chemical[] }> {
-  const chems = await Chemical.findAll({ where: { labId, id: { [Op.in]: [...chemicalIds] } }, transaction: t });
-  const boxes = await Container.findAll({
-    where: { labId, chemicalId: { [Op.in]: chems.map((c) => c.id) } },
-    order: [["id", "ASC"]],
-    ...(lock && t ? { lock: t.LOCK.UPDATE } : {}),
-    transaction: t,
-  });
+  // The chemicals and their containers are read at once (both by the ids asked for, in this lab).
+  const [chems, boxes] = await Promise.all([
+    Chemical.findAll({ where: { labId, id: { [Op.in]: [...chemicalIds] } }, transaction: t }),
+    Container.findAll({
+      where: { labId, chemicalId: { [Op.in]: [...chemicalIds] } },
+      order: [["id", "ASC"]],
+      ...(lock && t ? { lock: t.LOCK.UPDATE } : {}),
+      transaction: t,
+    }),
+  ]);
   const held = await heldByContainer(boxes.map((b) => b.id), t);
   return {
     records: chems,

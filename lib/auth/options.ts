@@ -14,13 +14,16 @@ function sessionVersionOf(user: NextAuthUser): number {
 }
 
 /**
- * Whether a session token is still good: its user exists and its session version is the
- * user's current one (a password change raises it, ending every other session).
+ * A session token checked against its user: null unless the user exists and the token's
+ * session version is the user's current one (a password change raises it, ending every
+ * other session); else the token with the user's current name and e-mail (the one read of
+ * the user per request: lib/auth/session.ts `currentUser` takes them from the session).
  */
-async function stillValid(token: JWT): Promise<boolean> {
-  if (typeof token.uid !== "string") return false;
-  const user = await User.findByPk(token.uid, { attributes: ["id", "sessionVersion"] });
-  return !!user && user.sessionVersion === (token.sv ?? 0);
+async function checked(token: JWT): Promise<JWT | null> {
+  if (typeof token.uid !== "string") return null;
+  const user = await User.findByPk(token.uid, { attributes: ["id", "sessionVersion", "name", "email"] });
+  if (!user || user.sessionVersion !== (token.sv ?? 0)) return null;
+  return { ...token, name: user.name, email: user.email };
 }
 
 /** next-auth configuration: e-mail and password, JWT sessions carrying the user id and session version. */
@@ -47,13 +50,19 @@ export const authOptions: NextAuthOptions = {
       if (user) {
         token.uid = user.id;
         token.sv = sessionVersionOf(user);
+        token.name = user.name;
+        token.email = user.email;
         return token;
       }
       // Checked on every use: a token from before a password change is emptied (signed out).
-      return (await stillValid(token)) ? token : {};
+      return (await checked(token)) ?? {};
     },
     async session({ session, token }) {
-      if (session.user && typeof token.uid === "string") session.user.id = token.uid;
+      if (session.user && typeof token.uid === "string") {
+        session.user.id = token.uid;
+        session.user.name = token.name ?? "";
+        session.user.email = token.email ?? "";
+      }
       return session;
     },
   },

@@ -4,7 +4,6 @@ import { cookies } from "next/headers";
 import { getServerSession } from "next-auth";
 import { decode, encode } from "next-auth/jwt";
 import { AppError } from "@/lib/errors/app-error";
-import { User } from "@/lib/server/models";
 import { serverEnv } from "@/lib/server/env";
 import { SESSION_MAX_AGE, authOptions } from "./options";
 
@@ -15,15 +14,16 @@ export interface SessionUser {
 }
 
 /**
- * The signed-in user, read from the session and confirmed in the database; null when
- * signed out. Memoised per request, so a layout and its page read the session once.
+ * The signed-in user, read from the session; null when signed out. The session is confirmed
+ * in the database on every read (lib/auth/options.ts: the jwt callback reads the user, ends a
+ * token from before a password change, and gives the user's current name and e-mail).
+ * Memoised per request, so a layout and its page read the session once.
  */
 export const currentUser = cache(async (): Promise<SessionUser | null> => {
   const session = await getServerSession(authOptions);
   const id = session?.user?.id;
   if (!id) return null;
-  const user = await User.findByPk(id);
-  return user ? { id: user.id, email: user.email, name: user.name } : null;
+  return { id, email: session.user?.email ?? "", name: session.user?.name ?? "" };
 });
 
 /** The signed-in user, or AppError unauthenticated (HTTP 401). */
