@@ -78,12 +78,14 @@ describe("a password change ends the user's other sessions", () => {
     const email = SEED.users.viewer.email;
     const signedIn = await authenticate({ email, password: SEED.password });
     const oldToken: JWT = { uid: signedIn.id, sv: signedIn.sessionVersion };
-    expect(await checkToken(oldToken)).toEqual(oldToken);
+    // A good token comes back with the user's current name and e-mail (the session's one read of the user).
+    const current = { name: signedIn.name, email: signedIn.email };
+    expect(await checkToken(oldToken)).toEqual({ ...oldToken, ...current });
     const newPassword = "a-new-password-for-the-test";
     const { sessionVersion } = await changePassword({ userId: signedIn.id, input: { currentPassword: SEED.password, newPassword, confirmPassword: newPassword } });
     expect(sessionVersion).toBe(signedIn.sessionVersion + 1);
     expect(await checkToken(oldToken)).toEqual({});
-    expect(await checkToken({ uid: signedIn.id, sv: sessionVersion })).toEqual({ uid: signedIn.id, sv: sessionVersion });
+    expect(await checkToken({ uid: signedIn.id, sv: sessionVersion })).toEqual({ uid: signedIn.id, sv: sessionVersion, ...current });
     // Put the demo password back for the other suites (it raises the version once more).
     await changePassword({ userId: signedIn.id, input: { currentPassword: newPassword, newPassword: SEED.password, confirmPassword: SEED.password } });
     expect((await User.findByPk(signedIn.id))?.sessionVersion).toBe(sessionVersion + 1);
