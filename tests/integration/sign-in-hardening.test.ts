@@ -81,6 +81,10 @@ describe("a password change ends the user's other sessions", () => {
     // A good token comes back with the user's current name and e-mail (the session's one read of the user).
     const current = { name: signedIn.name, email: signedIn.email };
     expect(await checkToken(oldToken)).toEqual({ ...oldToken, ...current });
+    // Renamed meanwhile: the next request's session has the new name, from the database, not the token.
+    await User.update({ name: "Renamed for the test" }, { where: { id: signedIn.id } });
+    expect(await checkToken({ ...oldToken, ...current })).toEqual({ ...oldToken, ...current, name: "Renamed for the test" });
+    await User.update({ name: signedIn.name }, { where: { id: signedIn.id } });
     const newPassword = "a-new-password-for-the-test";
     const { sessionVersion } = await changePassword({ userId: signedIn.id, input: { currentPassword: SEED.password, newPassword, confirmPassword: newPassword } });
     expect(sessionVersion).toBe(signedIn.sessionVersion + 1);
