@@ -14,8 +14,9 @@ import { heldByContainer, peroxideIntervalsFor, todayIso } from "./common";
  * after every competing reservation of them has committed or rolled back.
  */
 export async function loadStockFacts(labId: string, chemicalIds: readonly string[], t?: Transaction, lock = false): Promise<{ chemicals: ChemicalFacts[]; containers: ContainerFacts[]; records: Chemical[] }> {
-  // The chemicals and their containers are read at once (both by the ids asked for, in this lab).
-  const [chems, boxes] = await Promise.all([
+  // The chemicals and their containers are read at once (both by the ids asked for, in this lab);
+  // a container is kept only with its chemical found in the lab, as when it was read by the chemicals found.
+  const [chems, lab] = await Promise.all([
     Chemical.findAll({ where: { labId, id: { [Op.in]: [...chemicalIds] } }, transaction: t }),
     Container.findAll({
       where: { labId, chemicalId: { [Op.in]: [...chemicalIds] } },
@@ -24,6 +25,8 @@ export async function loadStockFacts(labId: string, chemicalIds: readonly string
       transaction: t,
     }),
   ]);
+  const found = new Set(chems.map((c) => c.id));
+  const boxes = lab.filter((b) => found.has(b.chemicalId));
   const held = await heldByContainer(boxes.map((b) => b.id), t);
   return {
     records: chems,

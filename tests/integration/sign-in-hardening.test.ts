@@ -83,8 +83,11 @@ describe("a password change ends the user's other sessions", () => {
     expect(await checkToken(oldToken)).toEqual({ ...oldToken, ...current });
     // Renamed meanwhile: the next request's session has the new name, from the database, not the token.
     await User.update({ name: "Renamed for the test" }, { where: { id: signedIn.id } });
-    expect(await checkToken({ ...oldToken, ...current })).toEqual({ ...oldToken, ...current, name: "Renamed for the test" });
-    await User.update({ name: signedIn.name }, { where: { id: signedIn.id } });
+    try {
+      expect(await checkToken({ ...oldToken, ...current })).toEqual({ ...oldToken, ...current, name: "Renamed for the test" });
+    } finally {
+      await User.update({ name: signedIn.name }, { where: { id: signedIn.id } }); // the demo name back for the other suites
+    }
     const newPassword = "a-new-password-for-the-test";
     const { sessionVersion } = await changePassword({ userId: signedIn.id, input: { currentPassword: SEED.password, newPassword, confirmPassword: newPassword } });
     expect(sessionVersion).toBe(signedIn.sessionVersion + 1);
